@@ -1,0 +1,71 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { z } from 'zod';
+import { requirePageUser } from '@/lib/auth/session';
+import { listCasesFor } from '@/db/cases';
+import { CASE_STATUSES } from '@/db/types';
+import { pagingSchema } from '@/lib/api/paging';
+import { StatusBadge } from '@/components/status-badge';
+
+export const metadata: Metadata = { title: 'Cases' };
+
+const querySchema = z.object({
+  status: z.enum(CASE_STATUSES).optional().catch(undefined),
+  q: z.string().max(100).optional().catch(undefined),
+});
+
+const HEADINGS = { admin: 'All cases', coordinator: 'All cases', hunter: 'Cases assigned to you', member: 'Your reports' } as const;
+
+export default async function CasesPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
+  const user = await requirePageUser();
+  const sp = await searchParams;
+  const filter = querySchema.parse(sp);
+  const paging = pagingSchema.catch({ page: 1, pageSize: 25 }).parse(sp);
+  const { items, total } = await listCasesFor(user, filter, paging);
+  return (
+    <div className="space-y-4">
+      <h1 className="text-2xl font-extrabold">{HEADINGS[user.role]}</h1>
+      <form className="flex flex-wrap items-end gap-2" role="search">
+        <div>
+          <label htmlFor="q" className="label">
+            Search
+          </label>
+          <input id="q" name="q" defaultValue={filter.q} className="field w-56" placeholder="title or reference" />
+        </div>
+        <div>
+          <label htmlFor="status" className="label">
+            Status
+          </label>
+          <select id="status" name="status" defaultValue={filter.status ?? ''} className="field w-40">
+            <option value="">any</option>
+            {CASE_STATUSES.map((s) => (
+              <option key={s} value={s}>
+                {s}
+              </option>
+            ))}
+          </select>
+        </div>
+        <button className="btn-quiet">Filter</button>
+      </form>
+      <p className="text-sm text-ink-soft">{total === 1 ? '1 case' : `${total} cases`}</p>
+      {items.length === 0 ? (
+        <p className="card text-ink-soft">No cases here yet.</p>
+      ) : (
+        <ul className="space-y-2" aria-label="Cases">
+          {items.map((c) => (
+            <li key={c.id} className="card flex flex-wrap items-center gap-x-3 gap-y-1">
+              <span className="font-mono text-sm text-ink-faint">{c.reference}</span>
+              <StatusBadge status={c.status} />
+              <span className="min-w-0 flex-1 basis-full font-semibold sm:basis-auto">{c.title}</span>
+              <span className="text-sm text-ink-soft">{c.bands.join(', ')}</span>
+              <span className="text-sm text-ink-soft">{c.assigneeName ? `hunter: ${c.assigneeName}` : 'unassigned'}</span>
+            </li>
+          ))}
+        </ul>
+      )}
+      <p className="text-sm text-ink-faint">
+        Before you go out, read the <Link href="/cautions">cautions</Link>.
+      </p>
+    </div>
+  );
+}

@@ -1,0 +1,42 @@
+import Link from 'next/link';
+import { requirePageUser } from '@/lib/auth/session';
+import { QuietfixMark } from '@/components/brand/quietfix-mark';
+import { SignOutButton } from '@/components/sign-out-button';
+import type { Role } from '@/db/types';
+
+const NAV: { href: string; label: string; roles: Role[] }[] = [
+  { href: '/cases', label: 'Cases', roles: ['admin', 'coordinator', 'hunter', 'member'] },
+  { href: '/invite', label: 'Invite', roles: ['admin', 'coordinator'] },
+  { href: '/admin/users', label: 'People', roles: ['admin'] },
+  { href: '/admin/mail', label: 'Caught mail', roles: ['admin'] },
+];
+
+export default async function SignedInLayout({ children }: { children: React.ReactNode }) {
+  const user = await requirePageUser();
+  return (
+    <div className="flex min-h-dvh flex-col">
+      <header className="sticky top-0 z-[1000] border-b border-ink/10 bg-white">
+        <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-4 gap-y-2 px-3 py-2">
+          <Link href="/cases" aria-label="Quietfix, cases" className="flex items-center gap-2 font-extrabold text-ink no-underline hover:no-underline">
+            <QuietfixMark className="h-7 w-7" />
+            <span className="hidden sm:inline">Quietfix</span>
+          </Link>
+          <nav aria-label="Main" className="flex flex-1 flex-wrap gap-1">
+            {NAV.filter((n) => n.roles.includes(user.role)).map((n) => (
+              <Link key={n.href} href={n.href} className="rounded-md px-3 py-2 text-sm font-semibold text-ink hover:bg-hush-50 hover:no-underline">
+                {n.label}
+              </Link>
+            ))}
+          </nav>
+          <div className="flex items-center gap-2 text-sm">
+            <span className="hidden text-ink-soft sm:inline" data-testid="who">
+              {user.name} · {user.role}
+            </span>
+            <SignOutButton />
+          </div>
+        </div>
+      </header>
+      <main className="mx-auto w-full max-w-6xl flex-1 px-3 py-4 sm:px-4">{children}</main>
+    </div>
+  );
+}

@@ -1,0 +1,27 @@
+import NextAuth from 'next-auth';
+import type { NextRequest } from 'next/server';
+import { authOptions } from '@/lib/auth/options';
+import { clientOf, signInBlocked } from '@/lib/auth/throttle';
+import { route, type RouteContext } from '@/lib/api/handler';
+import { tooManyRequests } from '@/lib/errors';
+
+const nextAuth = NextAuth(authOptions);
+
+export const GET = nextAuth;
+
+/** Credential sign-ins pass the throttle first: too many failures -> 429 with a plain message. */
+export const POST = route<{ nextauth: string[] }>(async (req: NextRequest, ctx: RouteContext<{ nextauth: string[] }>) => {
+  const { nextauth } = await ctx.params;
+  if (nextauth?.[0] === 'callback' && nextauth[1] === 'credentials') {
+    const form = await req.clone().formData().catch(() => undefined);
+    const email = String(form?.get('email') ?? '');
+    const { blocked, retryAfterS } = await signInBlocked(email, clientOf(req.headers));
+    if (blocked) {
+      throw tooManyRequests(
+        `Too many failed sign-ins. Wait ${Math.round(retryAfterS / 60)} minutes, or use "Forgot password" to set a new one.`,
+        retryAfterS,
+      );
+    }
+  }
+  return nextAuth(req, ctx);
+});

@@ -1,0 +1,17 @@
+import knex, { type Knex } from 'knex';
+import { env } from '@/lib/env';
+import { knexConfig } from './config';
+
+declare global {
+  // Reused across hot reloads in development so there is only ever one pool.
+  var __quietfixDb: Knex | undefined;
+}
+
+/** The one knex instance of the app. */
+export const db: Knex = globalThis.__quietfixDb ?? knex(knexConfig(env));
+if (env.NODE_ENV !== 'production') globalThis.__quietfixDb = db;
+
+/** Run `work` in one transaction; everything or nothing is written. */
+export function inTransaction<T>(work: (trx: Knex.Transaction) => Promise<T>): Promise<T> {
+  return db.transaction(work);
+}

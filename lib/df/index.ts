@@ -1,0 +1,24 @@
+/** Bearing math for locating radio-noise sources: pure functions, no I/O. */
+export type { LineOfBearing, Ellipse, Fix, FixOptions, NullSweepFit, SweepSample, NextSpot, NextSpotOptions } from './types';
+export { estimateFix } from './estimate-fix';
+export { declinationDeg } from './declination-deg';
+export { declinationInfo } from './declination-info';
+export { magneticToTrue } from './magnetic-to-true';
+export { dateToDecimalYear } from './date-to-decimal-year';
+export { decimalYearToDate } from './decimal-year-to-date';
+export { fitNullSweep } from './fit-null-sweep';
+export { suggestNextSpots } from './suggest-next-spots';
+export { geodesicLine } from './geodesic-line';
+export { ellipsePolygon } from './ellipse-polygon';
+export { sanityWarnings } from './sanity-warnings';
+export { sUnitsToDbm, s9Dbm, S9_HF_DBM, S9_VHF_DBM, DB_PER_S_UNIT } from './s-units-to-dbm';
+export { dbmToSUnits } from './dbm-to-s-units';
+export { wavelengthM, SPEED_OF_LIGHT_M_S } from './wavelength-m';
+export { nearFieldRadiusM } from './near-field-radius-m';
+export { loopCircumferenceM, type LoopShape } from './loop-circumference-m';
+export { loopCheck, SMALL_LOOP_MAX_WAVELENGTHS } from './loop-check';
+export { manMadeNoiseFamDb, ITU_P372_NOISE, type NoiseEnvironment } from './man-made-noise-fam-db';
+export { noisePowerDbm } from './noise-power-dbm';
+export { excessOverNoiseDb } from './excess-over-noise-db';
+export { nullWidthToSigmaDeg, NULL_SIGMA_PRESETS_DEG } from './null-width-to-sigma-deg';
+export { impedanceRatioFromTurns } from './impedance-ratio-from-turns';

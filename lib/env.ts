@@ -1,0 +1,38 @@
+import { z } from 'zod';
+
+/**
+ * Every setting Quietfix reads from the environment, parsed once.
+ * Defaults match what `npm start` sets up on a fresh machine; README.md lists them.
+ */
+const schema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  APP_URL: z.url().default('http://localhost:3000'),
+  DB_HOST: z.string().min(1).default('127.0.0.1'),
+  DB_PORT: z.coerce.number().int().min(1).max(65535).default(54329),
+  DB_USER: z.string().min(1).default('quietfix'),
+  DB_PASSWORD: z.string().default('quietfix-local'),
+  DB_NAME: z.string().min(1).default('quietfix'),
+  DB_POOL_MAX: z.coerce.number().int().min(1).max(50).default(10),
+  NEXTAUTH_SECRET: z.string().min(16).optional(),
+  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(1025),
+  SMTP_SECURE: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASS: z.string().optional(),
+  MAIL_FROM: z.string().min(3).default('Quietfix <no-reply@quietfix.example.test>'),
+  MAIL_CATCHER_URL: z.union([z.url(), z.literal('')]).default('http://127.0.0.1:8025'),
+  LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error']).default('info'),
+});
+
+export type Env = z.infer<typeof schema>;
+
+function load(): Env {
+  const parsed = schema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
+    throw new Error(`Quietfix configuration is invalid:\n${lines}`);
+  }
+  return parsed.data;
+}
+
+export const env: Env = load();

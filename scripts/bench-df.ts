@@ -1,0 +1,80 @@
+/**
+ * Timing of the bearing math (run: npx tsx scripts/bench-df.ts). Invented scene at sea
+ * (North Atlantic, open water), seeded noise, so figures are comparable between runs.
+ */
+import { estimateFix, suggestNextSpots, type LineOfBearing } from '../lib/df';
+import { Geodesic } from '../lib/df/internal/geodesy';
+
+function mulberry32(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const SOURCE = { lat: 47.5, lon: -30.25 };
+
+function scene(count: number, seed: number): LineOfBearing[] {
+  const rand = mulberry32(seed);
+  const normal = () => Math.sqrt(-2 * Math.log(1 - rand())) * Math.cos(2 * Math.PI * rand());
+  return Array.from({ length: count }, (_, i) => {
+    const obs = Geodesic.WGS84.Direct(SOURCE.lat, SOURCE.lon, rand() * 360, 200 + rand() * 4800);
+    const inv = Geodesic.WGS84.Inverse(obs.lat2 as number, obs.lon2 as number, SOURCE.lat, SOURCE.lon);
+    return { id: `b${i}`, lat: obs.lat2 as number, lon: obs.lon2 as number, azimuthDeg: (inv.azi1 as number) + 3 * normal(), sigmaDeg: 3 };
+  });
+}
+
+function medianMs(runs: number, fn: () => void): number {
+  fn(); // warm-up
+  const times: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    fn();
+    times.push(performance.now() - t0);
+  }
+  times.sort((a, b) => a - b);
+  return times[times.length >> 1];
+}
+
+/** The plain approach for comparison: every pairwise crossing in a local plane, averaged. */
+function pairwiseMean(lines: LineOfBearing[]): { lat: number; lon: number } {
+  const o = lines[0];
+  const pts = lines.map((l) => {
+    const r = Geodesic.WGS84.Inverse(o.lat, o.lon, l.lat, l.lon);
+    const a = ((r.azi1 as number) * Math.PI) / 180;
+    return [(r.s12 as number) * Math.sin(a), (r.s12 as number) * Math.cos(a), Math.sin((l.azimuthDeg * Math.PI) / 180), Math.cos((l.azimuthDeg * Math.PI) / 180)];
+  });
+  let sx = 0, sy = 0, n = 0;
+  for (let i = 0; i < pts.length; i++) {
+    for (let j = i + 1; j < pts.length; j++) {
+      const [x1, y1, dx1, dy1] = pts[i];
+      const [x2, y2, dx2, dy2] = pts[j];
+      const den = dx1 * dy2 - dy1 * dx2;
+      if (Math.abs(den) < 1e-9) continue;
+      const t = ((x2 - x1) * dy2 - (y2 - y1) * dx2) / den;
+      sx += x1 + t * dx1; sy += y1 + t * dy1; n++;
+    }
+  }
+  const e = sx / n, nn = sy / n;
+  const p = Geodesic.WGS84.Direct(o.lat, o.lon, (Math.atan2(e, nn) * 180) / Math.PI, Math.hypot(e, nn));
+  return { lat: p.lat2 as number, lon: p.lon2 as number };
+}
+
+const lines1000 = scene(1000, 7);
+const fix = estimateFix(lines1000);
+const fixMs = medianMs(21, () => estimateFix(lines1000));
+const lines12 = scene(12, 11);
+const spotsMs = medianMs(51, () => suggestNextSpots(lines12));
+const pairMs = medianMs(5, () => pairwiseMean(lines1000));
+const pair = pairwiseMean(lines1000);
+const miss = (p: { lat: number; lon: number }) => Geodesic.WGS84.Inverse(SOURCE.lat, SOURCE.lon, p.lat, p.lon).s12 as number;
+
+console.log('Quietfix bearing math, median of repeated runs');
+console.log(`estimateFix, 1,000 lines (incl. outlier test, 190 intersections): ${fixMs.toFixed(2)} ms  (target < 10 ms)`);
+console.log(`suggestNextSpots, 500 candidates (12 lines):                   ${spotsMs.toFixed(2)} ms  (target < 100 ms)`);
+console.log(`plain pairwise intersections, all 499,500 pairs averaged:       ${pairMs.toFixed(2)} ms`);
+if (fix.ok) console.log(`miss from the true point: estimateFix ${miss(fix).toFixed(1)} m (95 % semi-major ${fix.ellipse.semiMajorM.toFixed(1)} m), pairwise mean ${miss(pair).toFixed(1)} m`);

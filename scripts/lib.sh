@@ -1,0 +1,92 @@
+# Shared shell helpers for start.sh, test.sh, stop.sh and pg.sh. Source, don't run.
+set -euo pipefail
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+DATA="$ROOT/.data"
+mkdir -p "$DATA"
+export NEXT_TELEMETRY_DISABLED=1
+
+say() { printf '\033[1;36mquietfix\033[0m %s\n' "$*"; }
+die() { printf '\033[1;31mquietfix: %s\033[0m\n' "$*" >&2; exit 1; }
+is_root() { [ "$(id -u)" = 0 ]; }
+
+# true when something already listens on 127.0.0.1:$1
+port_taken() { (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
+need_free_port() { # port, what, env var
+  if port_taken "$1"; then die "port $1 ($2) is already in use on 127.0.0.1: stop what uses it (npm run stop) or set $3 to a free port."; fi
+}
+
+ensure_node_modules() {
+  if [ ! -f "$ROOT/node_modules/.package-lock.json" ] || [ "$ROOT/package-lock.json" -nt "$ROOT/node_modules/.package-lock.json" ]; then
+    say "installing npm dependencies (npm ci)…"
+    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error) || die "npm ci failed: check the network to the npm registry, then run npm start again."
+  fi
+}
+
+apt_install() { # packages...
+  is_root || die "$* missing and not root: install them with 'sudo apt-get install -y $*' and run again."
+  say "installing $* from Debian's packages…"
+  { apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends "$@"; } >"$DATA/apt.log" 2>&1 \
+    || die "apt-get install $* failed (see .data/apt.log)."
+}
+
+pg_bin() {
+  local d
+  d=$(ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -n 1 || true)
+  if [ -z "$d" ] || [ ! -x "$d/pg_ctl" ]; then
+    # Debian's package would also start its own cluster on 5432; ours is separate and on loopback only.
+    apt_install postgresql
+    d=$(ls -d /usr/lib/postgresql/*/bin | sort -V | tail -n 1)
+  fi
+  echo "$d"
+}
+
+ensure_chromium() {
+  if [ ! -x /usr/bin/chromium ]; then apt_install chromium; fi
+}
+
+# The NextAuth secret: from the environment, or made once and kept in .data.
+ensure_secret() {
+  if [ -z "${NEXTAUTH_SECRET:-}" ]; then
+    [ -s "$DATA/nextauth-secret" ] || node -e "process.stdout.write(require('crypto').randomBytes(32).toString('base64url'))" >"$DATA/nextauth-secret"
+    NEXTAUTH_SECRET=$(cat "$DATA/nextauth-secret"); export NEXTAUTH_SECRET
+  fi
+}
+
+# Builds the app unless the last build was made from exactly these sources.
+ensure_build() {
+  local stamp
+  # Fingerprint of every source file the build reads (tests and scripts excluded).
+  stamp=$(cd "$ROOT" && git ls-files -co --exclude-standard -z -- . ':!tests' ':!scripts' ':!.ci' ':!*.md' \
+    | xargs -0 sha1sum 2>/dev/null | sha1sum | cut -c1-16)
+  if [ -f "$ROOT/.next/BUILD_ID" ] && [ "$(cat "$DATA/build-stamp" 2>/dev/null)" = "$stamp" ]; then return 0; fi
+  say "building the app (next build)…"
+  (cd "$ROOT" && node node_modules/next/dist/bin/next build >"$DATA/build.log" 2>&1) || { tail -n 30 "$DATA/build.log" >&2; die "next build failed (full log: .data/build.log)."; }
+  echo "$stamp" >"$DATA/build-stamp"
+}
+
+# Waits until $1 answers 200, up to $2 seconds.
+wait_http() {
+  local i
+  for i in $(seq 1 "$(( $2 * 4 ))"); do
+    curl -fsS -o /dev/null "$1" 2>/dev/null && return 0
+    sleep 0.25
+  done
+  return 1
+}
+
+# Starts a command in its own process group, output to a log; prints its pid.
+spawn() { # log, command...
+  local log=$1; shift
+  setsid "$@" >"$log" 2>&1 < /dev/null &
+  echo $!
+}
+kill_group() { [ -n "${1:-}" ] && kill -TERM -- "-$1" 2>/dev/null || true; }
+
+db_env() { # name port
+  export DB_HOST=127.0.0.1 DB_PORT="$2" DB_NAME="$1" DB_USER="${DB_USER:-quietfix}" DB_PASSWORD="${DB_PASSWORD:-quietfix-local}"
+}
+
+migrate() {
+  (cd "$ROOT" && node --import tsx node_modules/knex/bin/cli.js --knexfile knexfile.ts migrate:latest >"$DATA/migrate.log" 2>&1) \
+    || { tail -n 20 "$DATA/migrate.log" >&2; die "database migration failed (log: .data/migrate.log)."; }
+}

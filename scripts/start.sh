@@ -1,0 +1,66 @@
+#!/usr/bin/env bash
+# npm start: install what is missing, start PostgreSQL (loopback), migrate, seed the demo once,
+# start the mail catcher, build and serve the app. Ctrl-C stops everything this script started.
+source "$(dirname "$0")/lib.sh"
+cd "$ROOT"
+
+export PORT="${PORT:-3000}"
+export DB_PORT="${DB_PORT:-54329}"
+export DB_NAME="${DB_NAME:-quietfix}"
+export APP_URL="${APP_URL:-http://localhost:$PORT}"
+export NEXTAUTH_URL="${NEXTAUTH_URL:-$APP_URL}"
+export CATCHER_SMTP_PORT="${CATCHER_SMTP_PORT:-1025}" CATCHER_HTTP_PORT="${CATCHER_HTTP_PORT:-8025}"
+export SMTP_HOST="${SMTP_HOST:-127.0.0.1}" SMTP_PORT="${SMTP_PORT:-$CATCHER_SMTP_PORT}"
+export MAIL_CATCHER_URL="${MAIL_CATCHER_URL-http://127.0.0.1:$CATCHER_HTTP_PORT}"
+export NODE_ENV=production
+HOSTNAME_BIND="${HOST:-127.0.0.1}"
+
+catcher_pid=""; app_pid=""; pg_started=0
+cleanup() {
+  trap - INT TERM EXIT
+  say "stopping…"
+  kill_group "$app_pid"; kill_group "$catcher_pid"
+  [ "$pg_started" = 1 ] && bash "$ROOT/scripts/pg.sh" down pg || true
+  rm -f "$DATA/start.pids"
+}
+trap cleanup INT TERM EXIT
+
+need_free_port "$PORT" "the web app" "PORT"
+ensure_node_modules
+ensure_secret
+db_env "$DB_NAME" "$DB_PORT"
+
+pgdir=$(bash scripts/pg.sh dir pg)
+if ! { [ -f "$pgdir/postmaster.pid" ] && port_taken "$DB_PORT"; }; then pg_started=1; fi
+bash scripts/pg.sh up pg "$DB_PORT"
+bash scripts/pg.sh ensure-db pg "$DB_PORT" "$DB_NAME"
+say "migrating $DB_NAME…"; migrate
+node --import tsx scripts/seed.ts || die "seeding the demo failed."
+
+if [ -n "$MAIL_CATCHER_URL" ]; then
+  need_free_port "$CATCHER_SMTP_PORT" "mail catcher SMTP" "CATCHER_SMTP_PORT"
+  need_free_port "$CATCHER_HTTP_PORT" "mail catcher API" "CATCHER_HTTP_PORT"
+  catcher_pid=$(spawn "$DATA/mail-catcher.log" node --import tsx scripts/mail-catcher.ts)
+  wait_http "$MAIL_CATCHER_URL/" 20 || die "the mail catcher did not start (log: .data/mail-catcher.log)."
+fi
+
+ensure_build
+app_pid=$(spawn "$DATA/app.log" node node_modules/next/dist/bin/next start -p "$PORT" -H "$HOSTNAME_BIND")
+echo "$app_pid $catcher_pid" >"$DATA/start.pids"
+wait_http "http://127.0.0.1:$PORT/api/health" 60 || { tail -n 20 "$DATA/app.log" >&2; die "the app did not become healthy (log: .data/app.log)."; }
+
+cat <<TXT
+
+  Quietfix is running at $APP_URL
+  Mail catcher:   ${MAIL_CATCHER_URL:-(off: mail goes to $SMTP_HOST:$SMTP_PORT)}
+  Demo sign-ins (password: quietfix-demo)
+    chair@example.test        admin
+    coordinator@example.test  coordinator
+    hunter@example.test       hunter
+    member@example.test       member
+  Logs in .data/*.log. Press Ctrl-C to stop.
+
+TXT
+# Keep running until the app exits or Ctrl-C.
+while kill -0 "$app_pid" 2>/dev/null; do sleep 1; done
+say "the app stopped (see .data/app.log)."

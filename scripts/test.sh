@@ -1,0 +1,58 @@
+#!/usr/bin/env bash
+# npm test: the same preparation as npm start, on a separate cluster and a fresh test database,
+# then Vitest (unit, integration against the real PostgreSQL and a running app), then
+# Playwright in Debian's chromium. Every runner runs; the exit code is non-zero if any failed.
+source "$(dirname "$0")/lib.sh"
+cd "$ROOT"
+
+export TEST_PORT="${TEST_PORT:-3100}"
+export PORT="$TEST_PORT"
+export DB_PORT="${TEST_DB_PORT:-54339}" DB_NAME="${TEST_DB_NAME:-quietfix_test}"
+export APP_URL="http://127.0.0.1:$TEST_PORT" NEXTAUTH_URL="http://127.0.0.1:$TEST_PORT" TEST_BASE_URL="http://127.0.0.1:$TEST_PORT"
+export CATCHER_SMTP_PORT="${TEST_SMTP_PORT:-1125}" CATCHER_HTTP_PORT="${TEST_CATCHER_HTTP_PORT:-8125}"
+export SMTP_HOST=127.0.0.1 SMTP_PORT="$CATCHER_SMTP_PORT" MAIL_CATCHER_URL="http://127.0.0.1:$CATCHER_HTTP_PORT"
+export CATCHER_STORE="$DATA/mail-test/messages.jsonl"
+export PG_FSYNC=off
+export QUIETFIX_TEST_PG=pg-test
+
+catcher_pid=""; app_pid=""
+cleanup() {
+  trap - INT TERM EXIT
+  kill_group "$app_pid"; kill_group "$catcher_pid"
+  bash "$ROOT/scripts/pg.sh" down pg-test >/dev/null 2>&1 || true
+  rm -f "$DATA/test.pids"
+}
+trap cleanup INT TERM EXIT
+
+need_free_port "$TEST_PORT" "the test app" "TEST_PORT"
+need_free_port "$CATCHER_SMTP_PORT" "the test mail catcher" "TEST_SMTP_PORT"
+need_free_port "$CATCHER_HTTP_PORT" "the test mail catcher API" "TEST_CATCHER_HTTP_PORT"
+ensure_node_modules
+ensure_secret
+db_env "$DB_NAME" "$DB_PORT"
+bash scripts/pg.sh up pg-test "$DB_PORT"
+bash scripts/pg.sh ensure-db pg-test "$DB_PORT" "$DB_NAME" fresh
+say "migrating $DB_NAME…"; migrate
+node --import tsx scripts/seed.ts || die "seeding the test database failed."
+
+rc=0
+say "unit tests (Vitest)…"
+npx vitest run --project unit || rc=1
+
+rm -f "$CATCHER_STORE"
+catcher_pid=$(spawn "$DATA/mail-catcher-test.log" node --import tsx scripts/mail-catcher.ts)
+ensure_build
+app_pid=$(spawn "$DATA/app-test.log" env NODE_ENV=production node node_modules/next/dist/bin/next start -p "$TEST_PORT" -H 127.0.0.1)
+echo "$app_pid $catcher_pid" >"$DATA/test.pids"
+wait_http "$MAIL_CATCHER_URL/" 20 || die "the test mail catcher did not start (log: .data/mail-catcher-test.log)."
+wait_http "$TEST_BASE_URL/api/health" 60 || { tail -n 20 "$DATA/app-test.log" >&2; die "the test app did not become healthy (log: .data/app-test.log)."; }
+
+say "integration tests (Vitest, real PostgreSQL and SMTP)…"
+npx vitest run --project integration || rc=1
+
+ensure_chromium
+say "end-to-end tests (Playwright, Debian's chromium)…"
+npx playwright test || rc=1
+
+[ "$rc" = 0 ] && say "all suites passed." || say "some suites failed (see above)."
+exit "$rc"

@@ -1,0 +1,59 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import { api, signIn, type Session } from '../support/http';
+import { ACCESS, type Who } from './access-matrix';
+
+const WHO: Who[] = ['anon', 'admin', 'coordinator', 'hunter', 'member'];
+const EMAIL: Record<Exclude<Who, 'anon'>, string> = {
+  admin: 'chair@example.test',
+  coordinator: 'coordinator@example.test',
+  hunter: 'hunter@example.test',
+  member: 'member@example.test',
+};
+
+const sessions: Partial<Record<Who, Session>> = {};
+const ids: Record<string, string> = {};
+
+beforeAll(async () => {
+  for (const who of WHO) if (who !== 'anon') sessions[who] = await signIn(EMAIL[who]);
+  for (const who of WHO) {
+    if (who === 'anon') continue;
+    ids[who] = (await api('/api/auth/session', { session: sessions[who] })).json.user.id;
+  }
+});
+
+describe('access matrix (401 signed out, 403 wrong role, JSON always)', () => {
+  const cases = ACCESS.flatMap((row) => WHO.map((who) => ({ row, who })));
+  it.each(cases.map((c) => [`${c.row.method} ${c.row.name} as ${c.who} -> ${c.row.expect[c.who]}`, c] as const))('%s', async (_label, { row, who }) => {
+    const r = await api(row.path(ids), { method: row.method, body: row.body?.(who), session: sessions[who] });
+    expect(r.status, r.text.slice(0, 300)).toBe(row.expect[who]);
+    expect(r.headers.get('content-type')).toMatch(/application\/json/);
+    if (r.status >= 400) expect(typeof r.json.error).toBe('string');
+  });
+});
+
+describe('signed-out page visits', () => {
+  it('redirect to sign-in and remember where to come back', async () => {
+    const r = await api('/cases?status=open');
+    expect([302, 307]).toContain(r.status);
+    const loc = new URL(r.headers.get('location')!, 'http://x');
+    expect(loc.pathname).toBe('/sign-in');
+    expect(loc.searchParams.get('next')).toBe('/cases?status=open');
+  });
+});
+
+describe('list endpoints', () => {
+  it('answer {items,total,page,pageSize} and cap pageSize', async () => {
+    const r = await api('/api/cases?page=1&pageSize=5000', { session: sessions.admin });
+    expect(r.status).toBe(200);
+    expect(Object.keys(r.json).sort()).toEqual(['items', 'page', 'pageSize', 'total']);
+    expect(r.json.pageSize).toBe(100);
+    expect(r.json.total).toBeGreaterThanOrEqual(3);
+  });
+  it('show members only their own reports and hunters only their assignments, without positions', async () => {
+    const member = await api('/api/cases', { session: sessions.member });
+    expect(member.json.items.length).toBeGreaterThan(0);
+    for (const c of member.json.items) expect(c).not.toHaveProperty('reportedLat');
+    const bad = await api('/api/cases?page=0', { session: sessions.admin });
+    expect(bad.status).toBe(400);
+  });
+});
