@@ -17,6 +17,14 @@ const CASE_COLUMNS = {
   version: 'c.version',
   createdAt: 'c.created_at',
   updatedAt: 'c.updated_at',
+  report: 'c.report',
+  consentShareName: 'c.consent_share_name',
+  possibleDuplicateOf: 'c.possible_duplicate_of',
+  mergedInto: 'c.merged_into',
+  outcome: 'c.outcome',
+  levelBeforeDbm: 'c.level_before_dbm',
+  levelAfterDbm: 'c.level_after_dbm',
+  resolvedAt: 'c.resolved_at',
 } as const;
 
 export type CaseListItem = Pick<CaseRow, 'id' | 'reference' | 'title' | 'status' | 'bands' | 'createdAt' | 'updatedAt'> & {
@@ -62,6 +70,69 @@ export async function getCase(id: string, q: Knex = db): Promise<CaseRow | undef
   return q('cases as c').select(CASE_COLUMNS).where('c.id', id).first();
 }
 
+/** The case row locked for the rest of the transaction (serialises writers on one case). */
+export async function lockCase(trx: Knex.Transaction, id: string): Promise<CaseRow | undefined> {
+  return trx('cases as c').select(CASE_COLUMNS).where('c.id', id).forUpdate().first();
+}
+
+/** Who last changed a case and how, for a plain 409 message. */
+export async function lastChange(caseId: string, q: Knex = db): Promise<{ actorName: string | null; kind: string; createdAt: Date } | undefined> {
+  return q('case_events as e')
+    .leftJoin('users as u', 'u.id', 'e.actor_id')
+    .select({ actorName: 'u.name', kind: 'e.kind', createdAt: 'e.created_at' })
+    .where('e.case_id', caseId)
+    .orderBy('e.id', 'desc')
+    .first();
+}
+
+const CASE_WRITABLE = {
+  title: 'title',
+  description: 'description',
+  status: 'status',
+  assigneeId: 'assignee_id',
+  bands: 'bands',
+  mergedInto: 'merged_into',
+  possibleDuplicateOf: 'possible_duplicate_of',
+  outcome: 'outcome',
+  levelBeforeDbm: 'level_before_dbm',
+  levelAfterDbm: 'level_after_dbm',
+} as const;
+export type CaseChanges = Partial<{ [K in keyof typeof CASE_WRITABLE]: CaseRow[K] }> & { resolvedAt?: Date | null };
+
+/** Writes changes and bumps the version; the caller has locked the row and checked the version. */
+export async function writeCase(trx: Knex.Transaction, id: string, changes: CaseChanges): Promise<void> {
+  const cols: Record<string, unknown> = { version: trx.raw('version + 1'), updated_at: trx.fn.now() };
+  for (const [k, col] of Object.entries(CASE_WRITABLE)) {
+    const v = changes[k as keyof CaseChanges];
+    if (v !== undefined) cols[col] = v;
+  }
+  if (changes.resolvedAt !== undefined) cols.resolved_at = changes.resolvedAt;
+  await trx('cases').where({ id }).update(cols);
+}
+
+/** An open case within `radiusM` metres of a point that shares a band (excluding one case). */
+export async function findNearbyOpenCase(
+  q: Knex,
+  p: { lat: number; lon: number; bands: string[]; radiusM: number; excludeId?: string },
+): Promise<{ id: string; reference: string; title: string } | undefined> {
+  if (p.bands.length === 0) return undefined;
+  // Haversine on a 6371 km sphere: plenty for a 500 m neighbourhood test.
+  return q('cases')
+    .select('id', 'reference', 'title')
+    .where('status', 'open')
+    .whereNull('merged_into')
+    .whereNotNull('reported_lat')
+    .whereRaw('bands && ?::text[]', [p.bands])
+    .modify((b) => (p.excludeId ? b.whereNot('id', p.excludeId) : b))
+    .whereRaw(
+      `2 * 6371000 * asin(sqrt(power(sin(radians(reported_lat - ?) / 2), 2) +
+        cos(radians(?)) * cos(radians(reported_lat)) * power(sin(radians(reported_lon - ?) / 2), 2))) <= ?`,
+      [p.lat, p.lat, p.lon, p.radiusM],
+    )
+    .orderBy('created_at', 'asc')
+    .first();
+}
+
 /** Our reference format: QF-<year>-<4-digit sequence>, e.g. QF-2026-0007. */
 export async function nextCaseReference(trx: Knex, now = new Date()): Promise<string> {
   const { rows } = await trx.raw<{ rows: { n: string }[] }>("select nextval('case_reference_seq') as n");
@@ -70,7 +141,8 @@ export async function nextCaseReference(trx: Knex, now = new Date()): Promise<st
 
 export async function insertCase(
   trx: Knex,
-  c: Pick<CaseRow, 'title' | 'description' | 'reporterId' | 'reportedLat' | 'reportedLon' | 'bands'> & Partial<Pick<CaseRow, 'status' | 'assigneeId'>>,
+  c: Pick<CaseRow, 'title' | 'description' | 'reporterId' | 'reportedLat' | 'reportedLon' | 'bands'> &
+    Partial<Pick<CaseRow, 'status' | 'assigneeId' | 'report' | 'consentShareName' | 'possibleDuplicateOf' | 'outcome'>>,
 ): Promise<CaseRow> {
   const reference = await nextCaseReference(trx);
   const [{ id }] = await trx('cases')
@@ -84,19 +156,53 @@ export async function insertCase(
       reported_lat: c.reportedLat,
       reported_lon: c.reportedLon,
       bands: c.bands,
+      report: JSON.stringify(c.report ?? {}),
+      consent_share_name: c.consentShareName ?? false,
+      possible_duplicate_of: c.possibleDuplicateOf ?? null,
+      outcome: c.outcome ?? null,
     })
     .returning('id');
   return (await getCase(id, trx))!;
 }
 
-export async function appendEvent(trx: Knex, e: { caseId: string; actorId: string | null; kind: string; data?: Record<string, unknown> }): Promise<void> {
-  await trx('case_events').insert({ case_id: e.caseId, actor_id: e.actorId, kind: e.kind, data: JSON.stringify(e.data ?? {}) });
+/**
+ * Appends to the case timeline. visibility 'all' lets the reporter read it too;
+ * 'committee' (the default) keeps it to coordinators, admins and the assigned hunter.
+ */
+export async function appendEvent(
+  trx: Knex,
+  e: { caseId: string; actorId: string | null; kind: string; data?: Record<string, unknown>; visibility?: 'all' | 'committee' },
+): Promise<CaseEvent & { actorName: string | null }> {
+  const [row] = await trx('case_events')
+    .insert({ case_id: e.caseId, actor_id: e.actorId, kind: e.kind, data: JSON.stringify(e.data ?? {}), visibility: e.visibility ?? 'committee' })
+    .returning(['id', 'created_at']);
+  const actor = e.actorId ? await trx('users').where({ id: e.actorId }).first('name') : undefined;
+  return {
+    id: String(row.id),
+    caseId: e.caseId,
+    actorId: e.actorId,
+    actorName: actor?.name ?? null,
+    kind: e.kind,
+    data: e.data ?? {},
+    visibility: e.visibility ?? 'committee',
+    createdAt: row.created_at,
+  };
 }
 
-export async function listEvents(caseId: string): Promise<(CaseEvent & { actorName: string | null })[]> {
+export async function listEvents(caseId: string, opts: { includeCommittee: boolean }): Promise<(CaseEvent & { actorName: string | null })[]> {
   return db('case_events as e')
     .leftJoin('users as u', 'u.id', 'e.actor_id')
-    .select({ id: 'e.id', caseId: 'e.case_id', actorId: 'e.actor_id', actorName: 'u.name', kind: 'e.kind', data: 'e.data', createdAt: 'e.created_at' })
+    .select({
+      id: 'e.id',
+      caseId: 'e.case_id',
+      actorId: 'e.actor_id',
+      actorName: 'u.name',
+      kind: 'e.kind',
+      data: 'e.data',
+      visibility: 'e.visibility',
+      createdAt: 'e.created_at',
+    })
     .where('e.case_id', caseId)
+    .modify((b) => (opts.includeCommittee ? b : b.where('e.visibility', 'all')))
     .orderBy([{ column: 'e.created_at' }, { column: 'e.id' }]);
 }

@@ -21,6 +21,44 @@ export type ClubSettings = {
   contactEmail: string;
   locateThresholdM: number;
   reminderDays: number;
+  maxPositionAccuracyM: number;
+};
+
+export type Profile = {
+  name: string;
+  email: string;
+  callSign: string | null;
+  role: Role;
+  loopShape: string | null;
+  loopSizeM: number | null;
+  loopCircumferenceM: number | null;
+  sMeterOffsetDb: number;
+  bearingReference: 'true' | 'magnetic';
+};
+
+export type BearingRow = {
+  id: string;
+  caseId: string;
+  authorId: string | null;
+  lat: number;
+  lon: number;
+  positionSource: 'device' | 'map';
+  positionAccuracyM: number | null;
+  azimuthEnteredDeg: number;
+  reference: 'true' | 'magnetic';
+  declinationDeg: number;
+  azimuthTrueDeg: number;
+  sigmaDeg: number;
+  nullWidthDeg: number | null;
+  frequencyKhz: number | null;
+  oneWay: boolean;
+  note: string;
+  sweep: unknown;
+  excluded: boolean;
+  version: number;
+  takenAt: Date;
+  createdAt: Date;
+  updatedAt: Date;
 };
 
 export type CaseRow = {
@@ -37,6 +75,14 @@ export type CaseRow = {
   version: number;
   createdAt: Date;
   updatedAt: Date;
+  report: Record<string, unknown>;
+  consentShareName: boolean;
+  possibleDuplicateOf: string | null;
+  mergedInto: string | null;
+  outcome: string | null;
+  levelBeforeDbm: number | null;
+  levelAfterDbm: number | null;
+  resolvedAt: Date | null;
 };
 
 export type CaseEvent = {
@@ -45,5 +91,6 @@ export type CaseEvent = {
   actorId: string | null;
   kind: string;
   data: Record<string, unknown>;
+  visibility: 'all' | 'committee';
   createdAt: Date;
 };

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { db } from './index';
-import type { Role, User } from './types';
+import type { Profile, Role, User } from './types';
 import type { Page, Paging } from '@/lib/api/paging';
 
 const COLUMNS = {
@@ -65,4 +65,48 @@ export async function setPassword(trx: Knex, id: string, passwordHash: string): 
 export async function countActiveAdmins(trx: Knex = db): Promise<number> {
   const [{ count }] = await trx('users').where({ role: 'admin', active: true }).count<{ count: string }[]>({ count: '*' });
   return Number(count);
+}
+
+const PROFILE_COLUMNS = {
+  name: 'name',
+  email: 'email',
+  callSign: 'call_sign',
+  role: 'role',
+  loopShape: 'loop_shape',
+  loopSizeM: 'loop_size_m',
+  loopCircumferenceM: 'loop_circumference_m',
+  sMeterOffsetDb: 's_meter_offset_db',
+  bearingReference: 'bearing_reference',
+} as const;
+
+export async function getProfile(id: string, q: Knex = db): Promise<Profile | undefined> {
+  return q('users').select(PROFILE_COLUMNS).where({ id }).first();
+}
+
+export async function updateProfile(
+  trx: Knex,
+  id: string,
+  p: Omit<Profile, 'email' | 'role'>,
+): Promise<void> {
+  await trx('users').where({ id }).update({
+    name: p.name,
+    call_sign: p.callSign,
+    loop_shape: p.loopShape,
+    loop_size_m: p.loopSizeM,
+    loop_circumference_m: p.loopCircumferenceM,
+    s_meter_offset_db: p.sMeterOffsetDb,
+    bearing_reference: p.bearingReference,
+    updated_at: trx.fn.now(),
+  });
+}
+
+/** Loop circumference (metres) per author, for the loop-size warning. */
+export async function loopCircumferences(ids: string[], q: Knex = db): Promise<Map<string, number>> {
+  if (ids.length === 0) return new Map();
+  const rows: { id: string; c: number | null }[] = await q('users').select({ id: 'id', c: 'loop_circumference_m' }).whereIn('id', ids);
+  return new Map(rows.filter((r) => r.c !== null).map((r) => [r.id, r.c as number]));
+}
+
+export async function listActiveHunters(): Promise<{ id: string; name: string; callSign: string | null }[]> {
+  return db('users').select({ id: 'id', name: 'name', callSign: 'call_sign' }).where({ active: true }).whereIn('role', ['hunter', 'coordinator', 'admin']).orderBy('name');
 }

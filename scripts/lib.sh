@@ -56,8 +56,8 @@ ensure_secret() {
 ensure_build() {
   local stamp
   # Fingerprint of every source file the build reads (tests and scripts excluded).
-  stamp=$(cd "$ROOT" && git ls-files -co --exclude-standard -z -- . ':!tests' ':!scripts' ':!.ci' ':!*.md' \
-    | xargs -0 sha1sum 2>/dev/null | sha1sum | cut -c1-16)
+  stamp=$(cd "$ROOT" && { git ls-files -co --exclude-standard -z -- . ':!tests' ':!scripts' ':!.ci' ':!*.md' \
+    | xargs -0 sha1sum 2>/dev/null || true; } | sha1sum | cut -c1-16)
   if [ -f "$ROOT/.next/BUILD_ID" ] && [ "$(cat "$DATA/build-stamp" 2>/dev/null)" = "$stamp" ]; then return 0; fi
   say "building the app (next build)…"
   (cd "$ROOT" && node node_modules/next/dist/bin/next build >"$DATA/build.log" 2>&1) || { tail -n 30 "$DATA/build.log" >&2; die "next build failed (full log: .data/build.log)."; }

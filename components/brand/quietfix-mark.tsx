@@ -14,7 +14,9 @@ export function Wordmark() {
   return (
     <span className="flex items-center gap-2 text-xl font-extrabold tracking-tight text-ink">
       <QuietfixMark />
-      Quiet<span className="text-hush-700">fix</span>
+      <span>
+        Quiet<span className="text-hush-700">fix</span>
+      </span>
     </span>
   );
 }

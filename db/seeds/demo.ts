@@ -1,6 +1,9 @@
 import type { Knex } from 'knex';
 import bcrypt from 'bcryptjs';
 import { appendEvent, insertCase } from '../cases';
+import { insertBearing } from '../bearings';
+import { recomputeFix } from '@/lib/hunt/fix';
+import { geodesicDirect, geodesicInverse } from '@/lib/df/internal/geodesy';
 
 /**
  * The demo scenario: a fictional club in the fictional town of Quillon, placed on open,
@@ -17,7 +20,41 @@ export const DEMO_USERS = [
   { email: 'member@example.test', name: 'Dov Pellinger', callSign: 'QD4MEM', role: 'member' },
 ] as const;
 
-export async function seedDemo(trx: Knex): Promise<void> {
+/**
+ * Demo bearings toward a made-up source: observers placed with GeographicLib's Direct problem,
+ * each bearing the Inverse azimuth to the source plus a small fixed error (degrees).
+ */
+async function seedBearings(
+  trx: Knex.Transaction,
+  caseId: string,
+  authorId: string,
+  source: { lat: number; lon: number },
+  spots: { fromSourceDeg: number; rangeM: number; errorDeg: number; sigmaDeg: number; frequencyKhz: number }[],
+) {
+  for (const [i, s] of spots.entries()) {
+    const o = geodesicDirect(source.lat, source.lon, s.fromSourceDeg, s.rangeM);
+    const az = (((geodesicInverse(o.lat, o.lon, source.lat, source.lon).azi1 + s.errorDeg) % 360) + 360) % 360;
+    const id = await insertBearing(trx, caseId, authorId, {
+      lat: o.lat,
+      lon: o.lon,
+      positionSource: 'device',
+      positionAccuracyM: 6,
+      azimuthEnteredDeg: az,
+      reference: 'true',
+      declinationDeg: 0,
+      azimuthTrueDeg: az,
+      sigmaDeg: s.sigmaDeg,
+      frequencyKhz: s.frequencyKhz,
+      oneWay: false,
+      note: `demo spot ${i + 1}`,
+      takenAt: new Date(Date.now() - (spots.length - i) * 15 * 60_000),
+    });
+    await appendEvent(trx, { caseId, actorId: authorId, kind: 'bearing-added', data: { bearingId: id, azimuthTrueDeg: az, sigmaDeg: s.sigmaDeg, reference: 'true' } });
+    await recomputeFix(trx, caseId, `bearing-added ${id}`);
+  }
+}
+
+export async function seedDemo(trx: Knex.Transaction): Promise<void> {
   const hash = await bcrypt.hash(DEMO_PASSWORD, 10);
   const ids: Record<string, string> = {};
   for (const u of DEMO_USERS) {
@@ -39,9 +76,20 @@ export async function seedDemo(trx: Knex): Promise<void> {
     reportedLon: DEMO_CENTRE.lon - 0.006,
     bands: ['80m', '40m'],
     assigneeId: ids.hunter,
+    report: {
+      sound: 'buzz',
+      soundNote: '100 Hz spacing, rough',
+      frequenciesKhz: [3650, 7100],
+      levelDbm: -85,
+      schedule: { days: ['mon', 'tue', 'wed', 'thu', 'fri', 'sat', 'sun'], fromHour: 18, toHour: 23, pattern: 'continuous', note: '' },
+    },
   });
-  await appendEvent(trx, { caseId: open.id, actorId: ids.member, kind: 'reported', data: { title: open.title } });
+  await appendEvent(trx, { caseId: open.id, actorId: ids.member, kind: 'reported', data: { title: open.title }, visibility: 'all' });
   await appendEvent(trx, { caseId: open.id, actorId: ids.coordinator, kind: 'assigned', data: { assigneeId: ids.hunter } });
+  await seedBearings(trx, open.id, ids.hunter, { lat: DEMO_CENTRE.lat + 0.0012, lon: DEMO_CENTRE.lon + 0.0021 }, [
+    { fromSourceDeg: 250, rangeM: 650, errorDeg: 1.5, sigmaDeg: 4, frequencyKhz: 3650 },
+    { fromSourceDeg: 330, rangeM: 800, errorDeg: -2, sigmaDeg: 4, frequencyKhz: 7100 },
+  ]);
 
   const located = await insertCase(trx, {
     title: 'Warbling carriers every 15 kHz across 20 m',
@@ -53,8 +101,14 @@ export async function seedDemo(trx: Knex): Promise<void> {
     assigneeId: ids.hunter,
     status: 'located',
   });
-  await appendEvent(trx, { caseId: located.id, actorId: ids.member, kind: 'reported', data: { title: located.title } });
-  await appendEvent(trx, { caseId: located.id, actorId: ids.hunter, kind: 'status-changed', data: { from: 'open', to: 'located', why: 'premises confirmed on foot' } });
+  await appendEvent(trx, { caseId: located.id, actorId: ids.member, kind: 'reported', data: { title: located.title }, visibility: 'all' });
+  await seedBearings(trx, located.id, ids.hunter, { lat: DEMO_CENTRE.lat - 0.0062, lon: DEMO_CENTRE.lon + 0.0114 }, [
+    { fromSourceDeg: 20, rangeM: 420, errorDeg: 0.6, sigmaDeg: 2, frequencyKhz: 14150 },
+    { fromSourceDeg: 115, rangeM: 380, errorDeg: -0.8, sigmaDeg: 2, frequencyKhz: 14150 },
+    { fromSourceDeg: 205, rangeM: 510, errorDeg: 0.3, sigmaDeg: 2, frequencyKhz: 18100 },
+    { fromSourceDeg: 290, rangeM: 300, errorDeg: -0.4, sigmaDeg: 2, frequencyKhz: 14150 },
+  ]);
+  await appendEvent(trx, { caseId: located.id, actorId: ids.hunter, kind: 'status-changed', data: { from: 'open', to: 'located', evidence: 'fix' }, visibility: 'all' });
 
   const resolved = await insertCase(trx, {
     title: 'Wideband hiss on 160 m after dark',
@@ -66,11 +120,13 @@ export async function seedDemo(trx: Knex): Promise<void> {
     assigneeId: ids.hunter,
     status: 'resolved',
   });
-  await appendEvent(trx, { caseId: resolved.id, actorId: ids.coordinator, kind: 'reported', data: { title: resolved.title } });
+  await appendEvent(trx, { caseId: resolved.id, actorId: ids.coordinator, kind: 'reported', data: { title: resolved.title }, visibility: 'all' });
   await appendEvent(trx, {
     caseId: resolved.id,
     actorId: ids.coordinator,
     kind: 'status-changed',
     data: { from: 'notified', to: 'resolved', outcome: 'fixed-by-owner', levelBeforeDbm: -85, levelAfterDbm: -103 },
+    visibility: 'all',
   });
+  await trx('cases').where({ id: resolved.id }).update({ outcome: 'fixed-by-owner', level_before_dbm: -85, level_after_dbm: -103, resolved_at: trx.fn.now() });
 }

@@ -14,6 +14,12 @@ export type Row = {
 
 const ALL_SIGNED_IN = { anon: 401, admin: 200, coordinator: 200, hunter: 200, member: 200 };
 const ADMIN_ONLY = { anon: 401, admin: 200, coordinator: 403, hunter: 403, member: 403 };
+/** Signed in and allowed, then stopped by validation: proves the access check came first. */
+const ALL_SIGNED_IN_BAD_BODY = { anon: 401, admin: 400, coordinator: 400, hunter: 400, member: 400 };
+const HUNT_READ = { anon: 401, admin: 200, coordinator: 200, hunter: 200, member: 403 };
+const HUNT_WRITE_BAD_BODY = { anon: 401, admin: 400, coordinator: 400, hunter: 400, member: 403 };
+const COMMITTEE_BAD_BODY = { anon: 401, admin: 400, coordinator: 400, hunter: 403, member: 403 };
+const COMMITTEE_READ = { anon: 401, admin: 200, coordinator: 200, hunter: 403, member: 403 };
 
 export const ACCESS: Row[] = [
   { name: 'list cases', method: 'GET', path: () => '/api/cases', expect: ALL_SIGNED_IN },
@@ -39,4 +45,20 @@ export const ACCESS: Row[] = [
     }),
     expect: ALL_SIGNED_IN,
   },
+  // The hunt. `openCase` is the demo's open case: reported by the demo member, assigned to the demo hunter.
+  { name: 'file a report', method: 'POST', path: () => '/api/cases', body: () => ({}), expect: ALL_SIGNED_IN_BAD_BODY },
+  { name: 'read a case', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}`, expect: ALL_SIGNED_IN },
+  { name: 'edit or assign a case', method: 'PATCH', path: (ids) => `/api/cases/${ids.openCase}`, body: () => ({ version: 1, title: 'x' }), expect: COMMITTEE_BAD_BODY },
+  { name: 'change status', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/transitions`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
+  { name: 'list bearings', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/bearings`, expect: HUNT_READ },
+  { name: 'add a bearing', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/bearings`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
+  { name: 'edit a bearing', method: 'PATCH', path: (ids) => `/api/cases/${ids.openCase}/bearings/${ids.openBearing}`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
+  { name: 'add a sweep', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/sweeps`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
+  { name: 'read the fix', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/fix`, expect: HUNT_READ },
+  { name: 'read the timeline', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/events`, expect: ALL_SIGNED_IN },
+  { name: 'comment', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/comments`, body: () => ({ text: '' }), expect: ALL_SIGNED_IN_BAD_BODY },
+  { name: 'merge', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/merge`, body: () => ({}), expect: COMMITTEE_BAD_BODY },
+  { name: 'read own profile', method: 'GET', path: () => '/api/profile', expect: ALL_SIGNED_IN },
+  { name: 'change own profile', method: 'PATCH', path: () => '/api/profile', body: () => ({}), expect: ALL_SIGNED_IN_BAD_BODY },
+  { name: 'list assignable people', method: 'GET', path: () => '/api/people/hunters', expect: COMMITTEE_READ },
 ];

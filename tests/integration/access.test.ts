@@ -19,6 +19,9 @@ beforeAll(async () => {
     if (who === 'anon') continue;
     ids[who] = (await api('/api/auth/session', { session: sessions[who] })).json.user.id;
   }
+  const open = await api('/api/cases?q=Rasping', { session: sessions.admin });
+  ids.openCase = open.json.items[0].id;
+  ids.openBearing = (await api(`/api/cases/${ids.openCase}/bearings`, { session: sessions.admin })).json.items[0].id;
 });
 
 describe('access matrix (401 signed out, 403 wrong role, JSON always)', () => {

@@ -1,21 +1,26 @@
-import { z } from 'zod';
-import { route, json } from '@/lib/api/handler';
+import { route, json, readJson } from '@/lib/api/handler';
 import { parsePaging } from '@/lib/api/paging';
 import { requireUser } from '@/lib/auth/session';
+import { inTransaction } from '@/db';
 import { listCasesFor } from '@/db/cases';
-import { CASE_STATUSES } from '@/db/types';
-
-const filterSchema = z.object({
-  status: z.enum(CASE_STATUSES).optional(),
-  assigneeId: z.uuid().optional(),
-  band: z.string().max(20).optional(),
-  q: z.string().max(100).optional(),
-});
+import { caseFilterSchema, reportSchema } from '@/lib/validation/cases';
+import { fileReport } from '@/lib/hunt/reports';
+import { toCaseDetail } from '@/lib/hunt/case-detail';
 
 /** Cases the caller may see (see listCasesFor), newest activity first. */
 export const GET = route(async (req) => {
   const me = await requireUser();
   const sp = req.nextUrl.searchParams;
-  const filter = filterSchema.parse(Object.fromEntries([...sp].filter(([k]) => k in filterSchema.shape)));
+  const filter = caseFilterSchema.parse(Object.fromEntries([...sp].filter(([k]) => k in caseFilterSchema.shape)));
   return json(await listCasesFor(me, filter, parsePaging(sp)));
+});
+
+/** Any signed-in person files a noise report; it becomes an open case. */
+export const POST = route(async (req) => {
+  const me = await requireUser();
+  const input = reportSchema.parse(await readJson(req));
+  const { row, duplicateOf } = await inTransaction((trx) => fileReport(trx, me, input));
+  const detail = await toCaseDetail(me, row);
+  const committee = me.role === 'admin' || me.role === 'coordinator';
+  return json({ case: detail, possibleDuplicate: committee ? (duplicateOf ?? null) : null }, 201);
 });

@@ -11,7 +11,7 @@
 import { DEG, bearingResidualDeg } from './angles';
 import { approxEastNorth, geodesicInverse, offsetEastNorth } from './geodesy';
 import type { PreparedLine } from './prepare-lines';
-import { invertSym2, type Sym2 } from './sym2';
+import { eigenSym2, invertSym2, type Sym2 } from './sym2';
 
 /** One line linearised at the estimate. */
 export type LineRow = {
@@ -43,8 +43,9 @@ export type Solution = {
 
 export type SolveFailure = { ok: false; reason: 'near-parallel' | 'no-convergence'; message: string };
 
-const MAX_ITERATIONS = 60;
+const MAX_ITERATIONS = 200;
 const STEP_TOLERANCE_M = 1e-3;
+const DECREMENT_TOLERANCE = 1e-8;
 /** Beyond this a "fix" is not a local noise source: the lines are effectively parallel. */
 const MAX_FIX_RANGE_M = 1_000_000;
 
@@ -71,9 +72,20 @@ function linearise(lines: PreparedLine[], lat: number, lon: number): { rows: Lin
   return { rows, normal: [a, b, c], gradient: [gE, gN], cost };
 }
 
+/** Mean of the observers' positions (via unit vectors, so the order of lines and +-180 do not matter). */
+function meanPosition(lines: PreparedLine[]): { lat: number; lon: number } {
+  let x = 0, y = 0, z = 0;
+  for (const l of lines) {
+    const c = Math.cos(l.lat * DEG);
+    x += c * Math.cos(l.lon * DEG); y += c * Math.sin(l.lon * DEG); z += Math.sin(l.lat * DEG);
+  }
+  if (Math.hypot(x, y, z) < 1e-9 * lines.length) return { lat: lines[0].lat, lon: lines[0].lon };
+  return { lat: Math.atan2(z, Math.hypot(x, y)) / DEG, lon: Math.atan2(y, x) / DEG };
+}
+
 /** Weighted linear least squares in a local plane: the start point of the iteration. */
 function planarStart(lines: PreparedLine[]): { lat: number; lon: number } | null {
-  const o = lines[0];
+  const o = meanPosition(lines);
   const pts = lines.map((l) => approxEastNorth(o.lat, o.lon, l.lat, l.lon));
   let x: [number, number] | null = null;
   let floorM = 1;
@@ -113,10 +125,49 @@ function parallelFailure(count: number): SolveFailure {
   return { ok: false, reason: 'near-parallel', message };
 }
 
-/** Solves for the most likely source position; `start` skips the planar start. */
+/** Iterations of plain Gauss-Newton before switching to Newton steps. */
+const NEWTON_AFTER = 8;
+
+/** Hessian of half the cost (J'W r gradient) by forward differences, or null if not positive definite. */
+function numericHessian(lines: PreparedLine[], lat: number, lon: number, g: [number, number], rows: LineRow[]): Sym2 | null {
+  const h = Math.max(1e-4 * Math.min(...rows.map((r) => r.rangeM)), 1e-3);
+  const pe = offsetEastNorth(lat, lon, h, 0);
+  const pn = offsetEastNorth(lat, lon, 0, h);
+  const ge = linearise(lines, pe.lat, pe.lon).gradient;
+  const gn = linearise(lines, pn.lat, pn.lon).gradient;
+  const a = (ge[0] - g[0]) / h;
+  const c = (gn[1] - g[1]) / h;
+  const b = ((ge[1] - g[1]) / h + (gn[0] - g[0]) / h) / 2;
+  return a > 0 && a * c - b * b > 0 ? [a, b, c] : null;
+}
+
+/** Up to this many lines, other minima along the ellipse's major axis are also tried. */
+const MULTI_START_MAX_LINES = 60;
+
+/**
+ * Solves for the most likely source position; `start` skips the planar start. With poor
+ * geometry the cost can have more than one minimum along the lines, so for small sets the
+ * search also starts 1 and 3 sigma either way along the major axis and keeps the lowest cost.
+ */
 export function solveLines(lines: PreparedLine[], start?: { lat: number; lon: number }): Solution | SolveFailure {
   const first = start ?? planarStart(lines);
   if (!first) return parallelFailure(lines.length);
+  const best = iterate(lines, first);
+  if (!best.ok || lines.length > MULTI_START_MAX_LINES) return best;
+  const cov = invertSym2(best.normal);
+  if (!cov) return best;
+  const e = eigenSym2(cov);
+  const sd = Math.sqrt(Math.max(e.major, 0));
+  let winner = best;
+  for (const k of [-3, -1, 1, 3]) {
+    const from = offsetEastNorth(best.lat, best.lon, k * sd * e.vx, k * sd * e.vy);
+    const other = iterate(lines, from);
+    if (other.ok && other.cost < winner.cost - 1e-9 * (1 + winner.cost)) winner = other;
+  }
+  return winner;
+}
+
+function iterate(lines: PreparedLine[], first: { lat: number; lon: number }): Solution | SolveFailure {
   let lat = first.lat, lon = first.lon;
   let lin = linearise(lines, lat, lon);
   let damping = 1;
@@ -125,7 +176,10 @@ export function solveLines(lines: PreparedLine[], start?: { lat: number; lon: nu
     // where the gradient vanishes, and the covariance taken from the undamped matrix, are unchanged.
     const [na, nb, nc] = lin.normal;
     const ridge = 1e-10 * (na + nc);
-    const inv = invertSym2([na + ridge, nb, nc + ridge]);
+    // Gauss-Newton first; if it crawls (large residuals, curved valley), Newton with the full
+    // Hessian from finite differences of the gradient, while that Hessian is positive definite.
+    const hessian = it > NEWTON_AFTER ? numericHessian(lines, lat, lon, lin.gradient, lin.rows) : null;
+    const inv = (hessian && invertSym2(hessian)) || invertSym2([na + ridge, nb, nc + ridge]);
     if (!inv) return parallelFailure(lines.length);
     const fullE = -(inv[0] * lin.gradient[0] + inv[1] * lin.gradient[1]);
     const fullN = -(inv[1] * lin.gradient[0] + inv[2] * lin.gradient[1]);
@@ -135,9 +189,12 @@ export function solveLines(lines: PreparedLine[], start?: { lat: number; lon: nu
     const dN = fullN * damping;
     const stepM = fullM * damping;
     const next = offsetEastNorth(lat, lon, dE, dN);
-    // Settled when the full Gauss-Newton step is under a millimetre, or when no shorter step
-    // lowers the cost any more (numerical floor).
-    if (fullM < STEP_TOLERANCE_M || stepM < 1e-6) {
+    // Settled when the full Gauss-Newton step is under a millimetre; when the quadratic model
+    // promises a cost drop below 1e-8 (chi-square units: the optimum is within 1e-4 sigma, the
+    // case of a long flat valley where Gauss-Newton crawls); or when no shorter step lowers the
+    // cost any more (numerical floor).
+    const decrement = -(fullE * lin.gradient[0] + fullN * lin.gradient[1]);
+    if (fullM < STEP_TOLERANCE_M || decrement < DECREMENT_TOLERANCE || stepM < 1e-6) {
       return { ok: true, lat: next.lat, lon: next.lon, rows: lin.rows, normal: lin.normal, cost: lin.cost, iterations: it };
     }
     const nextLin = linearise(lines, next.lat, next.lon);

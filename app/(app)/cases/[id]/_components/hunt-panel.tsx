@@ -1,0 +1,81 @@
+'use client';
+
+import Link from 'next/link';
+import { useState } from 'react';
+import type { BearingView, CaseDetail, FixView } from '@/lib/hunt/views';
+import { CaseMapClient } from '@/components/map/case-map-client';
+import { BearingForm } from '@/components/hunt/bearing-form';
+import { CautionList } from '@/components/cautions';
+import { BearingList } from './bearing-list';
+import { ConvergenceTrail } from './convergence-trail';
+import { FixSummary } from './fix-summary';
+
+type LatLon = { lat: number; lon: number };
+
+/** The hunt: map, fix in words, how it converged, the bearings, and (for the hunter) adding one. */
+export function HuntPanel({
+  c,
+  bearings,
+  fix,
+  error,
+  refresh,
+}: {
+  c: CaseDetail;
+  bearings?: BearingView[];
+  fix?: FixView;
+  error?: Error;
+  refresh: () => Promise<unknown>;
+}) {
+  const [picked, setPicked] = useState<LatLon | null>(null);
+  const current = fix?.current?.fix;
+  const outlierIds = current?.ok ? current.outlierIds : [];
+  return (
+    <section className="card space-y-4" aria-labelledby="hunt-heading" data-testid="hunt-panel">
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <h2 id="hunt-heading" className="text-lg font-bold">
+          The hunt
+        </h2>
+        {c.can.hunt && (
+          <Link href={`/cases/${c.id}/field`} className="btn-primary" data-testid="field-screen-link">
+            Open the field screen
+          </Link>
+        )}
+      </div>
+      {error && <p className="font-semibold text-alarm-600">Part of the hunt could not be loaded: {error.message} It is retried every few seconds.</p>}
+      <CaseMapClient
+        bearings={bearings ?? []}
+        fix={fix}
+        reportedPosition={c.reportedPosition ?? null}
+        selectedPosition={c.can.hunt ? picked : null}
+        onMapTap={c.can.hunt ? setPicked : undefined}
+        onSpotSelect={c.can.hunt ? (s) => setPicked({ lat: s.lat, lon: s.lon }) : undefined}
+        className="h-80"
+      />
+      {c.can.hunt && <p className="text-sm text-ink-soft">Tap the map, or a suggested spot, to set where the next bearing is taken from.</p>}
+      <FixSummary fix={fix} bearings={bearings ?? []} />
+      {fix && <ConvergenceTrail trail={fix.trail} />}
+      {bearings ? (
+        <BearingList caseId={c.id} bearings={bearings} outlierIds={outlierIds} canHunt={c.can.hunt} refresh={refresh} />
+      ) : (
+        <p className="text-ink-soft">Loading the bearings…</p>
+      )}
+      {c.can.hunt && (
+        <section className="space-y-3 border-t border-ink/10 pt-3" aria-labelledby="add-bearing-heading" data-testid="add-bearing">
+          <h3 id="add-bearing-heading" className="font-bold">
+            Add bearing
+          </h3>
+          <CautionList compact />
+          <BearingForm
+            caseId={c.id}
+            caseDetail={c}
+            selectedPosition={picked}
+            onSaved={() => {
+              setPicked(null);
+              void refresh();
+            }}
+          />
+        </section>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,21 @@
+'use client';
+
+import { TransitionFormShell } from './transition-form-shell';
+import { TextAreaField } from './form-fields';
+import { reopenSchema } from './transition-schemas';
+import { useTransitionForm, type TransitionFormProps } from './use-transition-form';
+
+export function ReopenForm({ c, send, busy, onCancel }: TransitionFormProps) {
+  const { form, submit } = useTransitionForm(reopenSchema, { to: 'open', version: c.version, reason: '' }, send);
+  return (
+    <TransitionFormShell title="Back to open" submitLabel="Reopen the case" busy={busy} onSubmit={submit} onCancel={onCancel}>
+      <TextAreaField
+        id="reopen-reason"
+        label="Why does the case go back to open?"
+        hint="e.g. the noise came back, or the fix pointed at the wrong house"
+        registration={form.register('reason')}
+        error={form.formState.errors.reason?.message}
+      />
+    </TransitionFormShell>
+  );
+}

@@ -1,0 +1,64 @@
+'use client';
+
+import { useState } from 'react';
+import type { CaseStatus } from '@/db/types';
+import type { CaseDetail, FixView } from '@/lib/hunt/views';
+import { ActionMessageBox } from './action-message';
+import { LocateForm } from './locate-form';
+import { NotifyForm } from './notify-form';
+import { ResolveForm } from './resolve-form';
+import { ReopenForm } from './reopen-form';
+import { useCaseAction } from './use-case-action';
+import type { SendTransition } from './use-transition-form';
+
+const LABELS: Record<CaseStatus, string> = {
+  located: 'Mark as located',
+  notified: 'Record a delivered letter',
+  resolved: 'Close with an outcome',
+  open: 'Back to open',
+};
+
+/** The status changes the caller may make (can.transitions), each behind its own small form. */
+export function StatusActions({ c, fix, refresh }: { c: CaseDetail; fix?: FixView; refresh: () => Promise<unknown> }) {
+  const [open, setOpen] = useState<CaseStatus | null>(null);
+  const action = useCaseAction(refresh);
+  const choices = c.can.transitions.filter((t) => t !== c.status);
+  if (choices.length === 0 && !action.message) return null;
+
+  const send: SendTransition = async (body) => {
+    const r = await action.run(`/api/cases/${c.id}/transitions`, { body: { ...body, version: c.version } }, `The case is now ${body.to}.`);
+    if (r.ok || r.status === 409) setOpen(null);
+    return r;
+  };
+  const props = { c, send, busy: action.busy, onCancel: () => setOpen(null) };
+
+  return (
+    <section className="card space-y-3" aria-labelledby="status-actions-heading" data-testid="status-actions">
+      <h2 id="status-actions-heading" className="text-lg font-bold">
+        Move the case on
+      </h2>
+      <ActionMessageBox message={action.message} />
+      {open === null && (
+        <div className="flex flex-wrap gap-2">
+          {choices.map((t) => (
+            <button
+              key={t}
+              type="button"
+              className={t === 'open' ? 'btn-quiet' : 'btn-primary'}
+              onClick={() => {
+                action.setMessage(null);
+                setOpen(t);
+              }}
+            >
+              {LABELS[t]}
+            </button>
+          ))}
+        </div>
+      )}
+      {open === 'located' && <LocateForm {...props} fix={fix} />}
+      {open === 'notified' && <NotifyForm {...props} />}
+      {open === 'resolved' && <ResolveForm {...props} />}
+      {open === 'open' && <ReopenForm {...props} />}
+    </section>
+  );
+}

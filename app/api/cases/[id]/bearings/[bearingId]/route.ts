@@ -1,0 +1,31 @@
+import { z } from 'zod';
+import { route, json, readJson } from '@/lib/api/handler';
+import { requireUser } from '@/lib/auth/session';
+import { inTransaction } from '@/db';
+import { getBearing } from '@/db/bearings';
+import { lockCase } from '@/db/cases';
+import { getClubSettings } from '@/db/settings';
+import { bearingPatchSchema } from '@/lib/validation/bearings';
+import { loadVisibleCase } from '@/lib/hunt/case-detail';
+import { editBearing } from '@/lib/hunt/bearings';
+import { fixView } from '@/lib/hunt/fix';
+import { toBearingView } from '@/lib/hunt/to-view';
+import { notFound } from '@/lib/errors';
+
+const paramsSchema = z.object({ id: z.uuid(), bearingId: z.uuid() });
+
+/** Edit, exclude or include a bearing (its author or a coordinator); the previous state is kept. */
+export const PATCH = route<{ id: string; bearingId: string }>(async (req, ctx) => {
+  const { id, bearingId } = paramsSchema.parse(await ctx.params);
+  const me = await requireUser('admin', 'coordinator', 'hunter');
+  await loadVisibleCase(me, id);
+  const patch = bearingPatchSchema.parse(await readJson(req));
+  const settings = await getClubSettings();
+  await inTransaction(async (trx) => {
+    const row = (await lockCase(trx, id))!;
+    const before = await getBearing(id, bearingId, trx);
+    if (!before) throw notFound('No such bearing on this case.');
+    await editBearing(trx, me, row, settings, before, patch);
+  });
+  return json({ bearing: toBearingView((await getBearing(id, bearingId))!), fix: await fixView(id, settings) });
+});

@@ -1,0 +1,33 @@
+import { route, json, readJson } from '@/lib/api/handler';
+import { requireUser } from '@/lib/auth/session';
+import { inTransaction } from '@/db';
+import { getBearing, listBearings } from '@/db/bearings';
+import { lockCase } from '@/db/cases';
+import { getClubSettings } from '@/db/settings';
+import { bearingInputSchema } from '@/lib/validation/bearings';
+import { caseIdSchema, loadVisibleCase } from '@/lib/hunt/case-detail';
+import { addBearing } from '@/lib/hunt/bearings';
+import { fixView } from '@/lib/hunt/fix';
+import { toBearingView } from '@/lib/hunt/to-view';
+import { forbidden } from '@/lib/errors';
+
+/** Every bearing of the case, excluded ones too (they are never deleted). */
+export const GET = route<{ id: string }>(async (_req, ctx) => {
+  const { id } = caseIdSchema.parse(await ctx.params);
+  const me = await requireUser('admin', 'coordinator', 'hunter');
+  const { access } = await loadVisibleCase(me, id);
+  if (!access.seeHunt) throw forbidden('Bearings are for the committee and the assigned hunter.');
+  const items = (await listBearings(id)).map(toBearingView);
+  return json({ items, total: items.length, page: 1, pageSize: items.length });
+});
+
+/** Adds a bearing; the fix is recomputed and a snapshot kept, in the same transaction. */
+export const POST = route<{ id: string }>(async (req, ctx) => {
+  const { id } = caseIdSchema.parse(await ctx.params);
+  const me = await requireUser('admin', 'coordinator', 'hunter');
+  await loadVisibleCase(me, id);
+  const input = bearingInputSchema.parse(await readJson(req));
+  const settings = await getClubSettings();
+  const saved = await inTransaction(async (trx) => addBearing(trx, me, (await lockCase(trx, id))!, settings, input));
+  return json({ bearing: toBearingView((await getBearing(id, saved.id))!), fix: await fixView(id, settings) }, 201);
+});

@@ -1,0 +1,49 @@
+import { route, json, readJson } from '@/lib/api/handler';
+import { requireUser } from '@/lib/auth/session';
+import { inTransaction } from '@/db';
+import { appendEvent, lockCase, writeCase } from '@/db/cases';
+import { getUserById } from '@/db/users';
+import { casePatchSchema } from '@/lib/validation/cases';
+import { caseIdSchema, loadVisibleCase, toCaseDetail } from '@/lib/hunt/case-detail';
+import { assertVersion } from '@/lib/hunt/stale';
+import { badRequest, forbidden, notFound } from '@/lib/errors';
+
+export const GET = route<{ id: string }>(async (_req, ctx) => {
+  const { id } = caseIdSchema.parse(await ctx.params);
+  const me = await requireUser();
+  const { row } = await loadVisibleCase(me, id);
+  return json(await toCaseDetail(me, row));
+});
+
+/** Coordinators: assign, or edit the title and description. One transaction with its timeline entry. */
+export const PATCH = route<{ id: string }>(async (req, ctx) => {
+  const { id } = caseIdSchema.parse(await ctx.params);
+  const me = await requireUser('admin', 'coordinator');
+  const patch = casePatchSchema.parse(await readJson(req));
+  const row = await inTransaction(async (trx) => {
+    const current = await lockCase(trx, id);
+    if (!current) throw notFound('No such case.');
+    await assertVersion(trx, current, patch.version);
+    if (patch.assigneeId !== undefined && patch.assigneeId !== current.assigneeId) {
+      if (patch.assigneeId) {
+        const hunter = await getUserById(patch.assigneeId, trx);
+        if (!hunter?.active || hunter.role === 'member') throw badRequest('Assign the case to an active hunter, coordinator or admin.');
+      }
+      await writeCase(trx, id, { assigneeId: patch.assigneeId });
+      await appendEvent(trx, {
+        caseId: id,
+        actorId: me.id,
+        kind: patch.assigneeId ? 'assigned' : 'unassigned',
+        data: { assigneeId: patch.assigneeId, previousAssigneeId: current.assigneeId },
+      });
+    }
+    const edits = { title: patch.title, description: patch.description };
+    if (Object.values(edits).some((v) => v !== undefined)) {
+      await writeCase(trx, id, edits);
+      await appendEvent(trx, { caseId: id, actorId: me.id, kind: 'edited', data: { before: { title: current.title, description: current.description } } });
+    }
+    return (await lockCase(trx, id))!;
+  });
+  if (!row) throw forbidden();
+  return json(await toCaseDetail(me, row));
+});

@@ -1,0 +1,22 @@
+import { route, json, readJson } from '@/lib/api/handler';
+import { requireUser } from '@/lib/auth/session';
+import { inTransaction } from '@/db';
+import { getBearing } from '@/db/bearings';
+import { lockCase } from '@/db/cases';
+import { getClubSettings } from '@/db/settings';
+import { sweepInputSchema } from '@/lib/validation/bearings';
+import { caseIdSchema, loadVisibleCase } from '@/lib/hunt/case-detail';
+import { addSweep } from '@/lib/hunt/bearings';
+import { fixView } from '@/lib/hunt/fix';
+import { toBearingView } from '@/lib/hunt/to-view';
+
+/** A rotation sweep (loop-axis angle and level readings) becomes a bearing through lib/df fitNullSweep. */
+export const POST = route<{ id: string }>(async (req, ctx) => {
+  const { id } = caseIdSchema.parse(await ctx.params);
+  const me = await requireUser('admin', 'coordinator', 'hunter');
+  await loadVisibleCase(me, id);
+  const input = sweepInputSchema.parse(await readJson(req));
+  const settings = await getClubSettings();
+  const saved = await inTransaction(async (trx) => addSweep(trx, me, (await lockCase(trx, id))!, settings, input));
+  return json({ bearing: toBearingView((await getBearing(id, saved.id))!), fix: await fixView(id, settings), sweepFit: saved.sweepFit }, 201);
+});

@@ -1,0 +1,94 @@
+'use client';
+
+import { FormProvider, useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import { TextField } from '@/components/ui/text-field';
+import type { BearingView, CaseDetail, FixView } from '@/lib/hunt/views';
+import { bearingInputSchema } from '@/lib/validation/bearings';
+import { BASE_ERROR_FIELDS, serverErrorSetter } from './base-fields';
+import { NoteField, OneWayField, ReferenceField } from './common-bearing-fields';
+import { CompassReader } from './compass-reader';
+import { SaveBar, NoHuntRights } from './form-sheet-parts';
+import { FrequencyField } from './frequency-field';
+import { NullSharpnessField } from './null-sharpness-field';
+import { parseDecimal } from './number-text';
+import { plainZodErrors } from './plain-zod-errors';
+import { PositionField } from './position-field';
+import { SubmitFeedback } from './submit-feedback';
+import { TrueAzimuthPreview } from './true-azimuth-preview';
+import { useHuntSubmit } from './use-hunt-submit';
+
+type In = z.input<typeof bearingInputSchema>;
+type Out = z.output<typeof bearingInputSchema>;
+
+const ERROR_FIELDS = { ...BASE_ERROR_FIELDS, azimuthDeg: 'azimuthDeg', sigmaDeg: 'sigmaDeg', nullWidthDeg: 'nullWidthDeg', quality: 'quality' };
+
+export type BearingFormProps = {
+  caseId: string;
+  caseDetail: CaseDetail;
+  /** Frequency to start with, kilohertz (e.g. the reported one). */
+  defaultFrequencyKhz?: number;
+  /** A position tapped on the case map, WGS84 degrees. */
+  selectedPosition?: { lat: number; lon: number } | null;
+  onSaved: () => void;
+};
+
+/** Adding one null bearing: where you stand, the azimuth (typed or from the compass), how sharp the null was. */
+export function BearingForm({ caseId, caseDetail, defaultFrequencyKhz, selectedPosition, onSaved }: BearingFormProps) {
+  const methods = useForm<In, unknown, Out>({
+    resolver: zodResolver(bearingInputSchema, { error: plainZodErrors }),
+    defaultValues: { reference: 'magnetic', quality: 'fair', oneWay: false, note: '', accuracyConfirmed: false, frequencyKhz: defaultFrequencyKhz },
+  });
+  const { register, handleSubmit, setValue, watch, formState, setError, getValues, reset } = methods;
+  const { state, send, confirmAnyway } = useHuntSubmit<{ bearing: BearingView; fix: FixView }>(
+    `/api/cases/${caseId}/bearings`,
+    () => {
+      // Ready for the next bearing: position, reference and frequency stay.
+      reset({ ...getValues(), azimuthDeg: undefined as unknown as number, nullWidthDeg: undefined, note: '', accuracyConfirmed: false });
+      onSaved();
+    },
+    serverErrorSetter(setError as never, ERROR_FIELDS),
+  );
+
+  if (!caseDetail.can.hunt) return <NoHuntRights />;
+
+  const lat = watch('lat');
+  const lon = watch('lon');
+  const position = typeof lat === 'number' && typeof lon === 'number' ? { lat, lon } : null;
+  const azimuth = watch('azimuthDeg');
+
+  return (
+    <FormProvider {...methods}>
+      <form noValidate aria-label="Add a bearing" className="space-y-4" onSubmit={handleSubmit((data) => send({ ...data }))}>
+        <PositionField caseId={caseId} maxAccuracyM={caseDetail.maxPositionAccuracyM} selectedPosition={selectedPosition} mapCenter={caseDetail.reportedPosition} />
+        <div className="space-y-2">
+          <TextField
+            id="bearing-azimuth"
+            label="Azimuth of the null (degrees)"
+            hint="0 to 360, clockwise from north, along the null."
+            inputMode="decimal"
+            autoComplete="off"
+            className="field text-2xl font-bold tabular-nums"
+            error={formState.errors.azimuthDeg}
+            registration={register('azimuthDeg', { setValueAs: parseDecimal })}
+          />
+          <CompassReader
+            onReading={(deg) => {
+              setValue('azimuthDeg', deg, { shouldValidate: formState.isSubmitted, shouldDirty: true });
+              setValue('reference', 'magnetic');
+            }}
+          />
+        </div>
+        <ReferenceField />
+        <TrueAzimuthPreview azimuthDeg={typeof azimuth === 'number' ? azimuth : undefined} reference={watch('reference')} position={position} />
+        <NullSharpnessField />
+        <FrequencyField id="bearing-frequency" />
+        <OneWayField id="bearing-one-way" />
+        <NoteField id="bearing-note" />
+        <SubmitFeedback state={state} onConfirm={() => void confirmAnyway()} />
+        <SaveBar label="Save bearing" pending={state.pending} />
+      </form>
+    </FormProvider>
+  );
+}

@@ -1,0 +1,87 @@
+'use client';
+
+import 'leaflet/dist/leaflet.css';
+import { useMemo } from 'react';
+import { MapContainer } from 'react-leaflet';
+import { ellipsePolygon, type NextSpot } from '@/lib/df';
+import type { BearingView, FixView } from '@/lib/hunt/views';
+import { BaseLayers } from './base-layers';
+import { BearingLayers, FixLayers, ReporterMarker, SpotMarkers, TrailLayer } from './case-map-layers';
+import { CaseMapLegend, type LegendKey } from './case-map-legend';
+import { FitBoundsOnce } from './fit-bounds-once';
+import { MapTap, type LatLon } from './map-tap';
+import { PLAIN_BACKGROUND } from './map-styles';
+import { PickedPositionMarker } from './picked-position-marker';
+
+export type CaseMapProps = {
+  bearings: BearingView[];
+  fix?: FixView;
+  /** Shown only to people allowed to see it (the API leaves it out otherwise). */
+  reportedPosition?: LatLon | null;
+  /** The position chosen for the next bearing. */
+  selectedPosition?: LatLon | null;
+  onMapTap?: (p: LatLon) => void;
+  onSpotSelect?: (s: NextSpot) => void;
+  className?: string;
+};
+
+/** Start view before there is anything to show: the whole world. */
+const WORLD: { center: [number, number]; zoom: number } = { center: [20, 0], zoom: 2 };
+
+/**
+ * The hunt on a map: lines of bearing, crossings, the fix with its 95 % error ellipse, how the
+ * fix converged and where to stand next. Browser only (load through CaseMapClient).
+ */
+export default function CaseMap({ bearings, fix, reportedPosition, selectedPosition, onMapTap, onSpotSelect, className }: CaseMapProps) {
+  const current = fix?.current?.fix;
+  const okFix = current && current.ok ? current : null;
+  const outlierIds = useMemo(() => new Set(okFix?.outlierIds ?? []), [okFix]);
+  const spots = useMemo(() => fix?.nextSpots ?? [], [fix]);
+
+  const fitPoints = useMemo(() => {
+    const pts: [number, number][] = bearings.map((b) => [b.lat, b.lon]);
+    if (okFix) pts.push(...ellipsePolygon(okFix, okFix.ellipse, 16));
+    for (const s of spots) pts.push([s.lat, s.lon]);
+    if (reportedPosition) pts.push([reportedPosition.lat, reportedPosition.lon]);
+    return pts;
+  }, [bearings, okFix, spots, reportedPosition]);
+
+  const legend: LegendKey[] = [];
+  if (bearings.some((b) => !b.excluded && !outlierIds.has(b.id))) legend.push('bearing');
+  if (bearings.some((b) => !b.excluded && outlierIds.has(b.id))) legend.push('outlier');
+  if (bearings.some((b) => b.excluded)) legend.push('excluded');
+  if (bearings.length) legend.push('observer');
+  if (okFix?.intersections.length) legend.push('cross');
+  if (okFix) legend.push('fix', 'ellipse');
+  if (okFix?.withoutOutliers) legend.push('alternative');
+  if (fix?.trail.some((t) => t.ok && t.lat !== null)) legend.push('trail');
+  if (spots.length) legend.push('spot');
+  if (reportedPosition) legend.push('reporter');
+  if (selectedPosition) legend.push('picked');
+
+  const start = reportedPosition ?? selectedPosition;
+  return (
+    <div role="region" aria-label="Case map" data-testid="case-map" className={`flex flex-col ${className ?? ''}`}>
+      <div className="relative isolate min-h-0 flex-1 overflow-hidden rounded-lg border border-ink/20">
+        <MapContainer
+          center={start ? [start.lat, start.lon] : WORLD.center}
+          zoom={start ? 15 : WORLD.zoom}
+          className="h-full min-h-56 w-full"
+          style={{ background: PLAIN_BACKGROUND }}
+          worldCopyJump
+        >
+          <BaseLayers />
+          <MapTap onTap={onMapTap} />
+          {fix && <TrailLayer fix={fix} />}
+          <BearingLayers bearings={bearings} outlierIds={outlierIds} fix={okFix} />
+          {fix && <FixLayers fix={fix} />}
+          {reportedPosition && <ReporterMarker position={reportedPosition} />}
+          {selectedPosition && <PickedPositionMarker position={selectedPosition} label="next bearing here" />}
+          <SpotMarkers spots={spots} onSelect={onSpotSelect} />
+          <FitBoundsOnce points={fitPoints} complete={fix !== undefined} />
+        </MapContainer>
+      </div>
+      <CaseMapLegend keys={legend} />
+    </div>
+  );
+}

@@ -1,0 +1,68 @@
+import type { Knex } from 'knex';
+import { distance } from '@turf/turf';
+import { db } from '@/db';
+import { listBearings, type BearingWithAuthor } from '@/db/bearings';
+import { fixTrail, insertFixSnapshot, latestFixSnapshot } from '@/db/fixes';
+import { loopCircumferences } from '@/db/users';
+import type { ClubSettings } from '@/db/types';
+import { estimateFix, sanityWarnings, suggestNextSpots, type Fix, type LineOfBearing } from '@/lib/df';
+import type { FixView } from './views';
+
+/** The lines lib/df works on: active bearings, true azimuths, ids = bearing ids. */
+export function toLines(bearings: Pick<BearingWithAuthor, 'id' | 'lat' | 'lon' | 'azimuthTrueDeg' | 'sigmaDeg' | 'oneWay' | 'excluded'>[]): LineOfBearing[] {
+  return bearings
+    .filter((b) => !b.excluded)
+    .map((b) => ({ id: b.id, lat: b.lat, lon: b.lon, azimuthDeg: b.azimuthTrueDeg, sigmaDeg: b.sigmaDeg, oneWay: b.oneWay }));
+}
+
+/** Recomputes the case's fix from its active bearings and keeps a snapshot (the history of the estimate). */
+export async function recomputeFix(trx: Knex.Transaction, caseId: string, cause: string): Promise<Fix> {
+  const lines = toLines(await listBearings(caseId, trx));
+  const fix = estimateFix(lines);
+  await insertFixSnapshot(trx, caseId, cause, lines.length, fix);
+  return fix;
+}
+
+/** Plain-language warnings about each active line's setup: loop size for its frequency, near field. */
+async function setupWarnings(bearings: BearingWithAuthor[], fix: Fix | undefined): Promise<string[]> {
+  const loops = await loopCircumferences([...new Set(bearings.map((b) => b.authorId).filter((x): x is string => !!x))]);
+  const out = new Set<string>();
+  for (const b of bearings) {
+    if (b.excluded || !b.frequencyKhz) continue;
+    const distanceM = fix?.ok ? distance([b.lon, b.lat], [fix.lon, fix.lat], { units: 'meters' }) : undefined;
+    for (const w of sanityWarnings({ frequencyHz: b.frequencyKhz * 1000, loopCircumferenceM: b.authorId ? loops.get(b.authorId) : undefined, distanceM })) {
+      out.add(`${b.authorName ?? 'A hunter'}'s line at ${b.azimuthTrueDeg.toFixed(1)}°: ${w}`);
+    }
+  }
+  return [...out];
+}
+
+/** The current fix, its convergence trail, where to stand next and what to watch out for. */
+export async function fixView(caseId: string, settings: Pick<ClubSettings, 'locateThresholdM'>, q: Knex = db): Promise<FixView> {
+  const [latest, trail, bearings] = await Promise.all([latestFixSnapshot(caseId, q), fixTrail(caseId, q), listBearings(caseId, q)]);
+  const fix = latest?.result;
+  const lines = toLines(bearings);
+  const nextSpots = lines.length > 0 ? suggestNextSpots(lines, { count: 3 }) : [];
+  const warnings = [...(fix?.ok ? fix.warnings : []), ...(await setupWarnings(bearings, fix))];
+  return {
+    current: latest ? { id: String(latest.id), createdAt: new Date(latest.createdAt).toISOString(), cause: latest.cause, lineCount: latest.lineCount, fix: latest.result } : null,
+    trail: trail.map((t) => ({
+      id: String(t.id),
+      createdAt: new Date(t.createdAt).toISOString(),
+      ok: t.ok,
+      lat: t.lat,
+      lon: t.lon,
+      semiMajorM: t.semiMajorM,
+      lineCount: t.lineCount,
+    })),
+    nextSpots,
+    warnings,
+    locateThresholdM: settings.locateThresholdM,
+    locatable: isLocatable(fix, settings.locateThresholdM),
+  };
+}
+
+/** A fix is good enough to call the case located when its 95 % ellipse semi-major is under the club's threshold. */
+export function isLocatable(fix: Fix | undefined, thresholdM: number): boolean {
+  return !!fix?.ok && fix.ellipse.confidence >= 0.95 && fix.ellipse.semiMajorM < thresholdM;
+}
