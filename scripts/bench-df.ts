@@ -5,22 +5,17 @@
 import { estimateFix, suggestNextSpots, type LineOfBearing } from '../lib/df';
 import { Geodesic } from '../lib/df/internal/geodesy';
 
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+/** Park-Miller minimal standard generator, uniform in (0, 1): seeded, so runs compare. */
+function parkMiller(seed: number): () => number {
+  let state = seed % 2147483647 || 1;
+  return () => (state = (state * 16807) % 2147483647) / 2147483647;
 }
 
 const SOURCE = { lat: 47.5, lon: -30.25 };
 
 function scene(count: number, seed: number): LineOfBearing[] {
-  const rand = mulberry32(seed);
-  const normal = () => Math.sqrt(-2 * Math.log(1 - rand())) * Math.cos(2 * Math.PI * rand());
+  const rand = parkMiller(seed);
+  const normal = () => Math.sqrt(-2 * Math.log(rand())) * Math.cos(2 * Math.PI * rand());
   return Array.from({ length: count }, (_, i) => {
     const obs = Geodesic.WGS84.Direct(SOURCE.lat, SOURCE.lon, rand() * 360, 200 + rand() * 4800);
     const inv = Geodesic.WGS84.Inverse(obs.lat2 as number, obs.lon2 as number, SOURCE.lat, SOURCE.lon);

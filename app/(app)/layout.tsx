@@ -6,6 +6,8 @@ import type { Role } from '@/db/types';
 
 const NAV: { href: string; label: string; roles: Role[] }[] = [
   { href: '/cases', label: 'Cases', roles: ['admin', 'coordinator', 'hunter', 'member'] },
+  { href: '/reports/new', label: 'Report noise', roles: ['admin', 'coordinator', 'hunter', 'member'] },
+  { href: '/profile', label: 'Profile', roles: ['admin', 'coordinator', 'hunter', 'member'] },
   { href: '/invite', label: 'Invite', roles: ['admin', 'coordinator'] },
   { href: '/admin/users', label: 'People', roles: ['admin'] },
   { href: '/admin/mail', label: 'Caught mail', roles: ['admin'] },

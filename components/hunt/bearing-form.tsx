@@ -7,15 +7,14 @@ import { TextField } from '@/components/ui/text-field';
 import type { BearingView, CaseDetail, FixView } from '@/lib/hunt/views';
 import { bearingInputSchema } from '@/lib/validation/bearings';
 import { BASE_ERROR_FIELDS, serverErrorSetter } from './base-fields';
-import { NoteField, OneWayField, ReferenceField } from './common-bearing-fields';
+import { ReferenceField } from './common-bearing-fields';
 import { CompassReader } from './compass-reader';
-import { SaveBar, NoHuntRights } from './form-sheet-parts';
-import { FrequencyField } from './frequency-field';
+import { NoHuntRights } from './form-sheet-parts';
+import { FormTail } from './form-tail';
 import { NullSharpnessField } from './null-sharpness-field';
 import { parseDecimal } from './number-text';
 import { plainZodErrors } from './plain-zod-errors';
 import { PositionField } from './position-field';
-import { SubmitFeedback } from './submit-feedback';
 import { TrueAzimuthPreview } from './true-azimuth-preview';
 import { useHuntSubmit } from './use-hunt-submit';
 
@@ -83,11 +82,7 @@ export function BearingForm({ caseId, caseDetail, defaultFrequencyKhz, selectedP
         <ReferenceField />
         <TrueAzimuthPreview azimuthDeg={typeof azimuth === 'number' ? azimuth : undefined} reference={watch('reference')} position={position} />
         <NullSharpnessField />
-        <FrequencyField id="bearing-frequency" />
-        <OneWayField id="bearing-one-way" />
-        <NoteField id="bearing-note" />
-        <SubmitFeedback state={state} onConfirm={() => void confirmAnyway()} />
-        <SaveBar label="Save bearing" pending={state.pending} />
+        <FormTail idPrefix="bearing" state={state} onConfirm={() => void confirmAnyway()} saveLabel="Save bearing" />
       </form>
     </FormProvider>
   );

@@ -79,7 +79,7 @@ export function PositionField({
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [selLat, selLon]);
 
-  const useMyLocation = () => {
+  const locateMe = () => {
     setGeoError(null);
     if (typeof navigator === 'undefined' || !navigator.geolocation) {
       setGeoError('This browser cannot share its location; tap your spot on the map.');
@@ -112,7 +112,7 @@ export function PositionField({
     <fieldset className="space-y-2" aria-describedby={error ? 'position-error' : undefined}>
       <legend className="label">Where you stand</legend>
       <div className="grid grid-cols-2 gap-2">
-        <button type="button" className="btn-primary" onClick={useMyLocation} disabled={locating}>
+        <button type="button" className="btn-primary" onClick={locateMe} disabled={locating}>
           {locating ? 'Locating…' : 'Use my location'}
         </button>
         <button type="button" className="btn-quiet" aria-expanded={showPicker} onClick={() => setShowPicker((v) => !v)}>

@@ -10,12 +10,11 @@ import { sweepInputSchema } from '@/lib/validation/bearings';
 import { BASE_ERROR_FIELDS, serverErrorSetter } from './base-fields';
 import type { BearingFormProps } from './bearing-form';
 import { ChoiceButtons } from './choice-buttons';
-import { NoteField, OneWayField, ReferenceField } from './common-bearing-fields';
-import { NoHuntRights, SaveBar } from './form-sheet-parts';
-import { FrequencyField } from './frequency-field';
+import { ReferenceField } from './common-bearing-fields';
+import { NoHuntRights } from './form-sheet-parts';
+import { FormTail } from './form-tail';
 import { plainZodErrors } from './plain-zod-errors';
 import { PositionField } from './position-field';
-import { SubmitFeedback } from './submit-feedback';
 import { SweepPolarPlot } from './sweep-polar-plot';
 import { SweepReadingsTable } from './sweep-readings-table';
 import { TrueAzimuthPreview } from './true-azimuth-preview';
@@ -92,11 +91,7 @@ export function SweepEntry({ caseId, caseDetail, defaultFrequencyKhz, selectedPo
           </p>
           {okFit && <TrueAzimuthPreview azimuthDeg={okFit.nullAzimuthDeg} reference={reference} position={position} what="The bearing will be" />}
         </section>
-        <FrequencyField id="sweep-frequency" />
-        <OneWayField id="sweep-one-way" />
-        <NoteField id="sweep-note" />
-        <SubmitFeedback state={state} onConfirm={() => void confirmAnyway()} />
-        <SaveBar label="Save sweep" pending={state.pending} />
+        <FormTail idPrefix="sweep" state={state} onConfirm={() => void confirmAnyway()} saveLabel="Save sweep" />
       </form>
     </FormProvider>
   );

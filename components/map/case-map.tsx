@@ -61,12 +61,13 @@ export default function CaseMap({ bearings, fix, reportedPosition, selectedPosit
 
   const start = reportedPosition ?? selectedPosition;
   return (
-    <div role="region" aria-label="Case map" data-testid="case-map" className={`flex flex-col ${className ?? ''}`}>
-      <div className="relative isolate min-h-0 flex-1 overflow-hidden rounded-lg border border-ink/20">
+    <div role="region" aria-label="Case map" data-testid="case-map">
+      {/* className sizes the map itself; the legend follows below it. */}
+      <div className={`relative isolate overflow-hidden rounded-lg border border-ink/20 ${className ?? 'h-80'}`}>
         <MapContainer
           center={start ? [start.lat, start.lon] : WORLD.center}
           zoom={start ? 15 : WORLD.zoom}
-          className="h-full min-h-56 w-full"
+          className="h-full w-full"
           style={{ background: PLAIN_BACKGROUND }}
           worldCopyJump
         >

@@ -85,7 +85,7 @@ export async function seedDemo(trx: Knex.Transaction): Promise<void> {
     },
   });
   await appendEvent(trx, { caseId: open.id, actorId: ids.member, kind: 'reported', data: { title: open.title }, visibility: 'all' });
-  await appendEvent(trx, { caseId: open.id, actorId: ids.coordinator, kind: 'assigned', data: { assigneeId: ids.hunter } });
+  await appendEvent(trx, { caseId: open.id, actorId: ids.coordinator, kind: 'assigned', data: { assigneeId: ids.hunter, assigneeName: 'Cleo Marchetti' } });
   await seedBearings(trx, open.id, ids.hunter, { lat: DEMO_CENTRE.lat + 0.0012, lon: DEMO_CENTRE.lon + 0.0021 }, [
     { fromSourceDeg: 250, rangeM: 650, errorDeg: 1.5, sigmaDeg: 4, frequencyKhz: 3650 },
     { fromSourceDeg: 330, rangeM: 800, errorDeg: -2, sigmaDeg: 4, frequencyKhz: 7100 },

@@ -44,8 +44,9 @@ export async function fileReport(trx: Knex.Transaction, user: User, r: Report): 
   await appendEvent(trx, { caseId: row.id, actorId: user.id, kind: 'reported', data: { title: r.title, bands }, visibility: 'all' });
   if (duplicateOf) {
     const data = { otherCaseId: duplicateOf.id, otherReference: duplicateOf.reference, newCaseId: row.id, newReference: row.reference, radiusM: DUPLICATE_RADIUS_M };
-    await appendEvent(trx, { caseId: row.id, actorId: null, kind: 'duplicate-flagged', data });
-    await appendEvent(trx, { caseId: duplicateOf.id, actorId: null, kind: 'duplicate-flagged', data });
+    // `reference` names the other case, as each timeline reads it.
+    await appendEvent(trx, { caseId: row.id, actorId: null, kind: 'duplicate-flagged', data: { ...data, reference: duplicateOf.reference } });
+    await appendEvent(trx, { caseId: duplicateOf.id, actorId: null, kind: 'duplicate-flagged', data: { ...data, reference: row.reference } });
   }
   return { row, duplicateOf };
 }

@@ -3,7 +3,7 @@
  * Dates travel as ISO strings.
  */
 import type { Fix, NextSpot } from '@/lib/df';
-import type { CaseStatus, Role } from '@/db/types';
+import type { BearingRow, CaseStatus, Role } from '@/db/types';
 
 export type PersonRef = { id: string; name: string; callSign: string | null };
 
@@ -54,26 +54,9 @@ export type CaseDetail = {
   viewerRole: Role;
 };
 
-export type BearingView = {
-  id: string;
-  caseId: string;
+export type BearingView = Omit<BearingRow, 'authorId' | 'sweep' | 'takenAt' | 'createdAt' | 'updatedAt'> & {
   author: PersonRef | null;
-  lat: number;
-  lon: number;
-  positionSource: 'device' | 'map';
-  positionAccuracyM: number | null;
-  azimuthEnteredDeg: number;
-  reference: 'true' | 'magnetic';
-  declinationDeg: number;
-  azimuthTrueDeg: number;
-  sigmaDeg: number;
-  nullWidthDeg: number | null;
-  frequencyKhz: number | null;
-  oneWay: boolean;
-  note: string;
   sweep: SweepRecord | null;
-  excluded: boolean;
-  version: number;
   revisions: number;
   takenAt: string;
   createdAt: string;

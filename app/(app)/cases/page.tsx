@@ -3,7 +3,9 @@ import Link from 'next/link';
 import { z } from 'zod';
 import { requirePageUser } from '@/lib/auth/session';
 import { listCasesFor } from '@/db/cases';
+import { listActiveHunters } from '@/db/users';
 import { CASE_STATUSES } from '@/db/types';
+import { BANDS } from '@/lib/hunt/bands';
 import { pagingSchema } from '@/lib/api/paging';
 import { StatusBadge } from '@/components/status-badge';
 
@@ -12,6 +14,8 @@ export const metadata: Metadata = { title: 'Cases' };
 const querySchema = z.object({
   status: z.enum(CASE_STATUSES).optional().catch(undefined),
   q: z.string().max(100).optional().catch(undefined),
+  band: z.string().max(20).optional().catch(undefined),
+  assigneeId: z.uuid().optional().catch(undefined),
 });
 
 const HEADINGS = { admin: 'All cases', coordinator: 'All cases', hunter: 'Cases assigned to you', member: 'Your reports' } as const;
@@ -19,9 +23,10 @@ const HEADINGS = { admin: 'All cases', coordinator: 'All cases', hunter: 'Cases 
 export default async function CasesPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
   const user = await requirePageUser();
   const sp = await searchParams;
-  const filter = querySchema.parse(sp);
+  const filter = querySchema.parse(Object.fromEntries(Object.entries(sp).filter(([, v]) => v !== '')));
   const paging = pagingSchema.catch({ page: 1, pageSize: 25 }).parse(sp);
-  const { items, total } = await listCasesFor(user, filter, paging);
+  const committee = user.role === 'admin' || user.role === 'coordinator';
+  const [{ items, total }, hunters] = await Promise.all([listCasesFor(user, filter, paging), committee ? listActiveHunters() : []]);
   return (
     <div className="space-y-4">
       <h1 className="text-2xl font-extrabold">{HEADINGS[user.role]}</h1>
@@ -45,7 +50,36 @@ export default async function CasesPage({ searchParams }: { searchParams: Promis
             ))}
           </select>
         </div>
+        <div>
+          <label htmlFor="band" className="label">
+            Band
+          </label>
+          <select id="band" name="band" defaultValue={filter.band ?? ''} className="field w-32">
+            <option value="">any</option>
+            {BANDS.map((b) => (
+              <option key={b.name}>{b.name}</option>
+            ))}
+          </select>
+        </div>
+        {committee && (
+          <div>
+            <label htmlFor="assigneeId" className="label">
+              Hunter
+            </label>
+            <select id="assigneeId" name="assigneeId" defaultValue={filter.assigneeId ?? ''} className="field w-48">
+              <option value="">anyone</option>
+              {hunters.map((h) => (
+                <option key={h.id} value={h.id}>
+                  {h.name}
+                </option>
+              ))}
+            </select>
+          </div>
+        )}
         <button className="btn-quiet">Filter</button>
+        <Link href="/reports/new" className="btn-primary ml-auto">
+          Report noise
+        </Link>
       </form>
       <p className="text-sm text-ink-soft">{total === 1 ? '1 case' : `${total} cases`}</p>
       {items.length === 0 ? (
@@ -56,7 +90,9 @@ export default async function CasesPage({ searchParams }: { searchParams: Promis
             <li key={c.id} className="card flex flex-wrap items-center gap-x-3 gap-y-1">
               <span className="font-mono text-sm text-ink-faint">{c.reference}</span>
               <StatusBadge status={c.status} />
-              <span className="min-w-0 flex-1 basis-full font-semibold sm:basis-auto">{c.title}</span>
+              <Link href={`/cases/${c.id}`} className="min-w-0 flex-1 basis-full font-semibold text-ink sm:basis-auto">
+                {c.title}
+              </Link>
               <span className="text-sm text-ink-soft">{c.bands.join(', ')}</span>
               <span className="text-sm text-ink-soft">{c.assigneeName ? `hunter: ${c.assigneeName}` : 'unassigned'}</span>
             </li>

@@ -10,9 +10,9 @@ import { callApi, fetchJson } from '@/lib/api/client';
 import type { Profile } from '@/db/types';
 import { TextField } from '@/components/ui/text-field';
 import { NoticeBox } from '@/components/ui/notice-box';
-import { numberOrUndefined, plainMessage } from '@/app/(app)/cases/[id]/_components/field-error';
-import { ChoiceChip, NumberField, SelectField } from '@/app/(app)/cases/[id]/_components/form-fields';
-import { applyServerIssues } from '@/app/(app)/cases/[id]/_components/apply-server-issues';
+import { numberOrUndefined, plainMessage } from '@/components/ui/field-error';
+import { ChoiceChip, NumberField, SelectField } from '@/components/ui/form-fields';
+import { applyServerIssues } from '@/lib/api/apply-server-issues';
 import { LoopSizeNote } from './loop-size-note';
 
 type ProfileOutput = z.output<typeof profileSchema>;

@@ -37,13 +37,6 @@ export function offsetEastNorth(lat: number, lon: number, eastM: number, northM:
   return { lat: p.lat, lon: p.lon };
 }
 
-/** East/north coordinates in metres of a point around an origin (azimuthal equidistant projection). */
-export function toEastNorth(originLat: number, originLon: number, lat: number, lon: number): [number, number] {
-  const r = geodesicInverse(originLat, originLon, lat, lon);
-  const a = (r.azi1 * Math.PI) / 180;
-  return [r.s12 * Math.sin(a), r.s12 * Math.cos(a)];
-}
-
 /**
  * Rough east/north metres of a point around an origin from the ellipsoid's radii of curvature at
  * the origin (good to a fraction of a percent within tens of km; used only for start values).

@@ -6,24 +6,31 @@ import { Geodesic } from 'geographiclib-geodesic';
 
 // Invariants of a maximum-likelihood fix; scenes from GeographicLib (Karney 2013).
 const SOURCE = { lat: -12.4, lon: 95.3 }; // open Indian Ocean
-const spotsArb = fc.array(
-  fc.record({ fromSourceAzDeg: fc.double({ min: 0, max: 360, noNaN: true }), rangeM: fc.double({ min: 200, max: 8000, noNaN: true }), sigmaDeg: fc.double({ min: 1, max: 6, noNaN: true }) }),
-  { minLength: 3, maxLength: 7 },
-);
+const spotArb = (az: fc.Arbitrary<number>) =>
+  fc.record({ fromSourceAzDeg: az, rangeM: fc.double({ min: 200, max: 8000, noNaN: true }), sigmaDeg: fc.double({ min: 1, max: 6, noNaN: true }) });
 /**
- * Realistic geometry: as lines (mod 180) the directions fall in at least three groups 20 degrees
- * apart and leave no gap wider than 120 degrees. (One tight bundle plus a single crossing line
- * with large noise can give a cost with two minima; that case is left out here.)
+ * Realistic geometry, built rather than filtered: three lines whose directions (mod 180) are
+ * 40-80 degrees apart, each seen from either side, plus up to four lines from anywhere.
+ * (One tight bundle plus a single crossing line with large noise can give a cost with two
+ * minima; such scenes are left out here.)
  */
-const wellSpread = (spots: Spot[]) => {
-  const az = spots.map((s) => s.fromSourceAzDeg % 180).sort((a, b) => a - b);
-  const gaps = az.map((a, i) => (i + 1 < az.length ? az[i + 1] - a : az[0] + 180 - a));
-  return Math.max(...gaps) < 120 && gaps.filter((g) => g >= 20).length >= 3;
-};
+const spotsArb = fc
+  .record({
+    rot: fc.double({ min: 0, max: 180, noNaN: true }),
+    d1: fc.double({ min: 40, max: 80, noNaN: true }),
+    d2: fc.double({ min: 40, max: 80, noNaN: true }),
+    sides: fc.tuple(fc.boolean(), fc.boolean(), fc.boolean()),
+    base: fc.tuple(spotArb(fc.constant(0)), spotArb(fc.constant(0)), spotArb(fc.constant(0))),
+    extra: fc.array(spotArb(fc.double({ min: 0, max: 360, noNaN: true })), { maxLength: 4 }),
+  })
+  .map(({ rot, d1, d2, sides, base, extra }): Spot[] => [
+    ...[rot, rot + d1, rot + d1 + d2].map((az, i) => ({ ...base[i], fromSourceAzDeg: (az + (sides[i] ? 180 : 0)) % 360 })),
+    ...extra,
+  ]);
 
 describe('estimateFix invariants (fast-check)', () => {
   it('order of lines does not change the fix', () => {
-    fc.assert(fc.property(spotsArb.filter(wellSpread), fc.integer({ min: 1, max: 1e6 }), (spots, seed) => {
+    fc.assert(fc.property(spotsArb, fc.integer({ min: 1, max: 1e6 }), (spots, seed) => {
       const lines = sceneLines(SOURCE, spots, gaussian(mulberry32(seed)));
       const a = estimateFix(lines);
       const b = estimateFix([...lines].reverse());
@@ -33,7 +40,7 @@ describe('estimateFix invariants (fast-check)', () => {
   });
 
   it('reciprocal flips of two-way lines do not move the fix', () => {
-    fc.assert(fc.property(spotsArb.filter(wellSpread), fc.integer({ min: 1, max: 1e6 }), (spots, seed) => {
+    fc.assert(fc.property(spotsArb, fc.integer({ min: 1, max: 1e6 }), (spots, seed) => {
       const lines = sceneLines(SOURCE, spots, gaussian(mulberry32(seed)));
       const flipped = lines.map((l, i) => (i % 2 ? { ...l, azimuthDeg: l.azimuthDeg - 180 } : l));
       const a = estimateFix(lines);
@@ -45,7 +52,7 @@ describe('estimateFix invariants (fast-check)', () => {
 
   it('moving the whole scene to another place gives the same relative fix', () => {
     const bands = fc.record({ lat: fc.double({ min: -70, max: 70, noNaN: true }), lon: fc.double({ min: -180, max: 180, noNaN: true }) });
-    fc.assert(fc.property(spotsArb.filter(wellSpread), bands, fc.integer({ min: 1, max: 1e6 }), (spots, place, seed) => {
+    fc.assert(fc.property(spotsArb, bands, fc.integer({ min: 1, max: 1e6 }), (spots, place, seed) => {
       // the same bearing errors at the same spots relative to the source, rebuilt around the new source
       const here = sceneLines(SOURCE, spots, gaussian(mulberry32(seed)));
       const there = sceneLines(place, spots, gaussian(mulberry32(seed)));
@@ -62,7 +69,7 @@ describe('estimateFix invariants (fast-check)', () => {
   });
 
   it('adding a line through the fix never enlarges the ellipse', () => {
-    fc.assert(fc.property(spotsArb.filter(wellSpread), fc.double({ min: 0, max: 360, noNaN: true }), fc.double({ min: 100, max: 9000, noNaN: true }), (spots, az, range) => {
+    fc.assert(fc.property(spotsArb, fc.double({ min: 0, max: 360, noNaN: true }), fc.double({ min: 100, max: 9000, noNaN: true }), (spots, az, range) => {
       const lines = sceneLines(SOURCE, spots, gaussian(mulberry32(3)));
       const a = estimateFix(lines);
       if (!a.ok) return true;

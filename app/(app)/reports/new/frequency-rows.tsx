@@ -3,14 +3,17 @@
 import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
 import { bandOf, toKhz } from '@/lib/hunt/bands';
 import type { ReportInput } from '@/lib/validation/cases';
-import { FieldError, numberOrUndefined, plainMessage } from '@/app/(app)/cases/[id]/_components/field-error';
-import { NumberField, SelectField } from '@/app/(app)/cases/[id]/_components/form-fields';
+import { FieldError, numberOrUndefined, plainMessage } from '@/components/ui/field-error';
+import { NumberField, SelectField } from '@/components/ui/form-fields';
 
 const MAX_FREQUENCIES = 12;
 const UNITS = [
   { value: 'kHz', label: 'kHz' },
   { value: 'MHz', label: 'MHz' },
 ];
+
+/** "Band: 40m", or for a frequency between the amateur bands "Outside the amateur bands (9 MHz)". */
+const bandWords = (name: string) => (/^\d+m$/.test(name) ? `Band: ${name}` : `Outside the amateur bands (${name})`);
 
 type FrequencyRow = ReportInput['frequencies'][number];
 /** A row with an empty number box (the schema asks for a number on submit). */
@@ -42,13 +45,14 @@ export function FrequencyRows() {
                 min={0}
                 placeholder="e.g. 3.650"
                 error={err}
-                aria-describedby={`freq-${i}-band${err ? ` freq-${i}-error` : ''}`}
+                hint={
+                  <span data-testid="frequency-band" className={khz !== undefined ? 'font-semibold text-hush-700' : undefined}>
+                    {khz === undefined ? 'Band: type a frequency' : bandWords(bandOf(khz))}
+                  </span>
+                }
                 registration={register(`frequencies.${i}.value`, { setValueAs: numberOrUndefined })}
               />
               <SelectField id={`freq-${i}-unit`} label={`Unit of frequency ${n}`} hideLabel className="w-24" options={UNITS} registration={register(`frequencies.${i}.unit`)} />
-              <p id={`freq-${i}-band`} className="flex min-h-11 w-20 items-center text-sm font-semibold text-hush-700" data-testid="frequency-band">
-                {khz !== undefined ? bandOf(khz) : <span className="font-normal text-ink-faint">band?</span>}
-              </p>
               <button type="button" className="btn-quiet px-3" aria-label={`Remove frequency ${n}`} disabled={fields.length === 1} onClick={() => remove(i)}>
                 ✕
               </button>

@@ -4,9 +4,9 @@ import { useFormContext, useWatch } from 'react-hook-form';
 import { dbmToSUnits, sUnitsToDbm } from '@/lib/df';
 import { toKhz } from '@/lib/hunt/bands';
 import type { ReportInput } from '@/lib/validation/cases';
-import { numberOrUndefined, plainMessage } from '@/app/(app)/cases/[id]/_components/field-error';
-import { ChoiceChip, NumberField, SelectField } from '@/app/(app)/cases/[id]/_components/form-fields';
-import { signed } from '@/app/(app)/cases/[id]/_components/words';
+import { numberOrUndefined, plainMessage } from '@/components/ui/field-error';
+import { ChoiceChip, NumberField, SelectField } from '@/components/ui/form-fields';
+import { signed } from '@/lib/hunt/words';
 
 type Mode = 'none' | 'S' | 'dBm';
 const MODES: { value: Mode; label: string }[] = [

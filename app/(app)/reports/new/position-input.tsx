@@ -3,8 +3,8 @@
 import { useState } from 'react';
 import { useFormContext, useWatch } from 'react-hook-form';
 import type { ReportInput } from '@/lib/validation/cases';
-import { FieldError, plainMessage } from '@/app/(app)/cases/[id]/_components/field-error';
-import { metres } from '@/app/(app)/cases/[id]/_components/words';
+import { FieldError, plainMessage } from '@/components/ui/field-error';
+import { metres } from '@/lib/hunt/words';
 import { PositionPickerClient } from '@/components/map/position-picker-client';
 
 

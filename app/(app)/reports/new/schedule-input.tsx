@@ -3,9 +3,9 @@
 import { useFormContext } from 'react-hook-form';
 import { WEEKDAYS, type ReportInput } from '@/lib/validation/cases';
 import { TextField } from '@/components/ui/text-field';
-import { numberOrUndefined } from '@/app/(app)/cases/[id]/_components/field-error';
-import { ChoiceChip, SelectField } from '@/app/(app)/cases/[id]/_components/form-fields';
-import { dayName } from '@/app/(app)/cases/[id]/_components/words';
+import { numberOrUndefined } from '@/components/ui/field-error';
+import { ChoiceChip, SelectField } from '@/components/ui/form-fields';
+import { dayName } from '@/lib/hunt/words';
 
 const hourOption = (h: number) => ({ value: h, label: `${String(h).padStart(2, '0')}:00` });
 const FROM_HOURS = Array.from({ length: 24 }, (_, h) => hourOption(h));

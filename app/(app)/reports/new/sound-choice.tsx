@@ -2,8 +2,8 @@
 
 import { useFormContext } from 'react-hook-form';
 import { SOUND_KINDS, type ReportInput } from '@/lib/validation/cases';
-import { FieldError, plainMessage } from '@/app/(app)/cases/[id]/_components/field-error';
-import { ChoiceChip, TextAreaField } from '@/app/(app)/cases/[id]/_components/form-fields';
+import { FieldError, plainMessage } from '@/components/ui/field-error';
+import { ChoiceChip, TextAreaField } from '@/components/ui/form-fields';
 
 /** What the noise sounds like: one card per kind, plus the reporter's own words. */
 export function SoundChoice() {

@@ -25,22 +25,21 @@ export const PATCH = route<{ id: string }>(async (req, ctx) => {
     if (!current) throw notFound('No such case.');
     await assertVersion(trx, current, patch.version);
     if (patch.assigneeId !== undefined && patch.assigneeId !== current.assigneeId) {
-      if (patch.assigneeId) {
-        const hunter = await getUserById(patch.assigneeId, trx);
-        if (!hunter?.active || hunter.role === 'member') throw badRequest('Assign the case to an active hunter, coordinator or admin.');
-      }
+      const hunter = patch.assigneeId ? await getUserById(patch.assigneeId, trx) : undefined;
+      if (patch.assigneeId && (!hunter?.active || hunter.role === 'member')) throw badRequest('Assign the case to an active hunter, coordinator or admin.');
       await writeCase(trx, id, { assigneeId: patch.assigneeId });
       await appendEvent(trx, {
         caseId: id,
         actorId: me.id,
         kind: patch.assigneeId ? 'assigned' : 'unassigned',
-        data: { assigneeId: patch.assigneeId, previousAssigneeId: current.assigneeId },
+        data: { assigneeId: patch.assigneeId, assigneeName: hunter?.name ?? null, previousAssigneeId: current.assigneeId },
       });
     }
     const edits = { title: patch.title, description: patch.description };
     if (Object.values(edits).some((v) => v !== undefined)) {
       await writeCase(trx, id, edits);
-      await appendEvent(trx, { caseId: id, actorId: me.id, kind: 'edited', data: { before: { title: current.title, description: current.description } } });
+      const fields = Object.keys(edits).filter((k) => edits[k as keyof typeof edits] !== undefined);
+      await appendEvent(trx, { caseId: id, actorId: me.id, kind: 'edited', data: { fields, before: { title: current.title, description: current.description } } });
     }
     return (await lockCase(trx, id))!;
   });

@@ -6,6 +6,7 @@ import { fetchJson } from '@/lib/api/client';
 import type { CaseDetail, PersonRef } from '@/lib/hunt/views';
 import { ActionMessageBox } from './action-message';
 import { useCaseAction } from './use-case-action';
+import { CardSection } from './card-section';
 
 const personWords = (p: PersonRef) => (p.callSign ? `${p.name} (${p.callSign})` : p.name);
 
@@ -27,10 +28,7 @@ export function AssignmentCard({ c, refresh }: { c: CaseDetail; refresh: () => P
   }
 
   return (
-    <section className="card space-y-3" aria-labelledby="assignment-heading" data-testid="assignment">
-      <h2 id="assignment-heading" className="text-lg font-bold">
-        Hunter
-      </h2>
+    <CardSection id="assignment" title="Hunter" testId="assignment">
       <p data-testid="assignee">{c.assignee ? personWords(c.assignee) : 'Nobody is assigned yet.'}</p>
       <ActionMessageBox message={action.message} />
       {c.can.assign && (
@@ -54,6 +52,6 @@ export function AssignmentCard({ c, refresh }: { c: CaseDetail; refresh: () => P
           </button>
         </div>
       )}
-    </section>
+    </CardSection>
   );
 }

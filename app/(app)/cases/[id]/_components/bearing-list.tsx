@@ -6,7 +6,7 @@ import { formatLatLon } from '@/components/hunt/format-position';
 import { ActionMessageBox } from './action-message';
 import { useCaseAction } from './use-case-action';
 import { bearingName } from './fix-summary';
-import { degrees, formatWhen, frequencyWords, metres } from './words';
+import { degrees, formatWhen, frequencyWords, metres } from '@/lib/hunt/words';
 
 function BearingItem({ b, outlier, toggle, busy }: { b: BearingView; outlier: boolean; toggle?: () => void; busy: boolean }) {
   return (
@@ -30,7 +30,7 @@ function BearingItem({ b, outlier, toggle, busy }: { b: BearingView; outlier: bo
           {b.positionAccuracyM !== null && `, within ${metres(b.positionAccuracyM)}`})
         </li>
         {b.sweep && <li>From a rotation sweep of {b.sweep.samples.length} readings</li>}
-        {b.revisions > 0 && <li>Edited {b.revisions === 1 ? 'once' : `${b.revisions} times`}</li>}
+        <li>Revisions: {b.revisions}</li>
         {b.note && <li className="whitespace-pre-line">Note: {b.note}</li>}
       </ul>
       {toggle && (

@@ -1,6 +1,7 @@
 import { OUTCOMES, SOUND_KINDS } from '@/lib/validation/cases';
 import type { CaseDetail } from '@/lib/hunt/views';
-import { formatWhen, frequencyWords, levelWords, scheduleWords, signed } from './words';
+import { formatWhen, frequencyWords, levelWords, scheduleWords, signed } from '@/lib/hunt/words';
+import { CardSection } from './card-section';
 
 function Row({ term, children, testId }: { term: string; children: React.ReactNode; testId?: string }) {
   return (
@@ -17,10 +18,7 @@ export function CaseDetails({ c }: { c: CaseDetail }) {
   const khz = r.frequenciesKhz ?? [];
   const sound = r.sound ? (SOUND_KINDS[r.sound as keyof typeof SOUND_KINDS] ?? r.sound) : undefined;
   return (
-    <section className="card" aria-labelledby="details-heading" data-testid="case-details">
-      <h2 id="details-heading" className="text-lg font-bold">
-        The report
-      </h2>
+    <CardSection id="details" title="The report" testId="case-details">
       <dl className="divide-y divide-ink/10">
         <Row term="Filed">{formatWhen(c.createdAt)}</Row>
         {sound && (
@@ -75,6 +73,6 @@ export function CaseDetails({ c }: { c: CaseDetail }) {
           </Row>
         )}
       </dl>
-    </section>
+    </CardSection>
   );
 }

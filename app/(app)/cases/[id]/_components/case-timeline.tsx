@@ -1,14 +1,12 @@
 import type { EventView } from '@/lib/hunt/views';
 import { eventText, eventWords } from './event-words';
-import { formatWhen } from './words';
+import { formatWhen } from '@/lib/hunt/words';
+import { CardSection } from './card-section';
 
 /** The append-only case history, oldest first; new entries are announced politely. */
 export function CaseTimeline({ events, error, children }: { events?: EventView[]; error?: Error; children?: React.ReactNode }) {
   return (
-    <section className="card space-y-3" aria-labelledby="timeline-heading">
-      <h2 id="timeline-heading" className="text-lg font-bold">
-        Timeline
-      </h2>
+    <CardSection id="timeline" title="Timeline">
       {error && <p className="font-semibold text-alarm-600">The timeline could not be loaded: {error.message}</p>}
       {!events && !error && <p className="text-ink-soft">Loading the timeline…</p>}
       <ol className="space-y-3" data-testid="timeline" aria-live="polite" aria-relevant="additions">
@@ -28,6 +26,6 @@ export function CaseTimeline({ events, error, children }: { events?: EventView[]
       </ol>
       {events?.length === 0 && <p className="text-ink-soft">Nothing has happened yet.</p>}
       {children}
-    </section>
+    </CardSection>
   );
 }

@@ -8,8 +8,8 @@ import { commentSchema } from '@/lib/validation/cases';
 import { callApi } from '@/lib/api/client';
 import type { EventView } from '@/lib/hunt/views';
 import { NoticeBox } from '@/components/ui/notice-box';
-import { applyServerIssues } from './apply-server-issues';
-import { TextAreaField } from './form-fields';
+import { applyServerIssues } from '@/lib/api/apply-server-issues';
+import { TextAreaField } from '@/components/ui/form-fields';
 
 type CommentIn = z.input<typeof commentSchema>;
 type CommentOut = z.output<typeof commentSchema>;

@@ -1,5 +1,5 @@
 import type { FixView } from '@/lib/hunt/views';
-import { formatTime, metres } from './words';
+import { formatTime, metres } from '@/lib/hunt/words';
 
 /** How the fix shrank as lines were added: time, lines, semi-major. */
 export function ConvergenceTrail({ trail }: { trail: FixView['trail'] }) {

@@ -1,5 +1,5 @@
 import type { BearingView, FixView } from '@/lib/hunt/views';
-import { degrees, formatTime, metres } from './words';
+import { degrees, formatTime, metres } from '@/lib/hunt/words';
 import { formatLatLon } from '@/components/hunt/format-position';
 
 /** "Cleo Marchetti, 14:05, 212.0° true" — how a bearing is named in warnings and outlier lists. */

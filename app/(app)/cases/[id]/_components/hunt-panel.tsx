@@ -9,6 +9,7 @@ import { CautionList } from '@/components/cautions';
 import { BearingList } from './bearing-list';
 import { ConvergenceTrail } from './convergence-trail';
 import { FixSummary } from './fix-summary';
+import { CardSection } from './card-section';
 
 type LatLon = { lat: number; lon: number };
 
@@ -30,17 +31,18 @@ export function HuntPanel({
   const current = fix?.current?.fix;
   const outlierIds = current?.ok ? current.outlierIds : [];
   return (
-    <section className="card space-y-4" aria-labelledby="hunt-heading" data-testid="hunt-panel">
-      <div className="flex flex-wrap items-center justify-between gap-2">
-        <h2 id="hunt-heading" className="text-lg font-bold">
-          The hunt
-        </h2>
-        {c.can.hunt && (
+    <CardSection
+      id="hunt"
+      title="The hunt"
+      testId="hunt-panel"
+      aside={
+        c.can.hunt && (
           <Link href={`/cases/${c.id}/field`} className="btn-primary" data-testid="field-screen-link">
             Open the field screen
           </Link>
-        )}
-      </div>
+        )
+      }
+    >
       {error && <p className="font-semibold text-alarm-600">Part of the hunt could not be loaded: {error.message} It is retried every few seconds.</p>}
       <CaseMapClient
         bearings={bearings ?? []}
@@ -76,6 +78,6 @@ export function HuntPanel({
           />
         </section>
       )}
-    </section>
+    </CardSection>
   );
 }

@@ -1,12 +1,12 @@
 'use client';
 
 import type { FixView } from '@/lib/hunt/views';
-import { FieldError } from './field-error';
-import { ChoiceChip, TextAreaField } from './form-fields';
+import { FieldError } from '@/components/ui/field-error';
+import { ChoiceChip, TextAreaField } from '@/components/ui/form-fields';
 import { TransitionFormShell } from './transition-form-shell';
 import { locatedSchema } from './transition-schemas';
 import { useTransitionForm, type TransitionFormProps } from './use-transition-form';
-import { metres } from './words';
+import { metres } from '@/lib/hunt/words';
 
 /** How the current fix compares with the club's limit, in words. */
 function fixAgainstLimit(fix: FixView | undefined, limitM: number): string {

@@ -2,7 +2,7 @@
 
 import { TextField } from '@/components/ui/text-field';
 import { TransitionFormShell } from './transition-form-shell';
-import { TextAreaField } from './form-fields';
+import { TextAreaField } from '@/components/ui/form-fields';
 import { notifiedSchema } from './transition-schemas';
 import { useTransitionForm, type TransitionFormProps } from './use-transition-form';
 

@@ -1,7 +1,7 @@
 'use client';
 
 import { TransitionFormShell } from './transition-form-shell';
-import { TextAreaField } from './form-fields';
+import { TextAreaField } from '@/components/ui/form-fields';
 import { reopenSchema } from './transition-schemas';
 import { useTransitionForm, type TransitionFormProps } from './use-transition-form';
 

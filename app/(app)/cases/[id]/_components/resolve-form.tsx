@@ -1,8 +1,8 @@
 'use client';
 
 import { OUTCOMES } from '@/lib/validation/cases';
-import { numberOrUndefined, plainMessage } from './field-error';
-import { NumberField, SelectField, TextAreaField } from './form-fields';
+import { numberOrUndefined, plainMessage } from '@/components/ui/field-error';
+import { NumberField, SelectField, TextAreaField } from '@/components/ui/form-fields';
 import { TransitionFormShell } from './transition-form-shell';
 import { resolvedSchema } from './transition-schemas';
 import { useTransitionForm, type TransitionFormProps } from './use-transition-form';

@@ -10,6 +10,7 @@ import { ResolveForm } from './resolve-form';
 import { ReopenForm } from './reopen-form';
 import { useCaseAction } from './use-case-action';
 import type { SendTransition } from './use-transition-form';
+import { CardSection } from './card-section';
 
 const LABELS: Record<CaseStatus, string> = {
   located: 'Mark as located',
@@ -33,10 +34,7 @@ export function StatusActions({ c, fix, refresh }: { c: CaseDetail; fix?: FixVie
   const props = { c, send, busy: action.busy, onCancel: () => setOpen(null) };
 
   return (
-    <section className="card space-y-3" aria-labelledby="status-actions-heading" data-testid="status-actions">
-      <h2 id="status-actions-heading" className="text-lg font-bold">
-        Move the case on
-      </h2>
+    <CardSection id="status-actions" title="Move the case on" testId="status-actions">
       <ActionMessageBox message={action.message} />
       {open === null && (
         <div className="flex flex-wrap gap-2">
@@ -59,6 +57,6 @@ export function StatusActions({ c, fix, refresh }: { c: CaseDetail; fix?: FixVie
       {open === 'notified' && <NotifyForm {...props} />}
       {open === 'resolved' && <ResolveForm {...props} />}
       {open === 'open' && <ReopenForm {...props} />}
-    </section>
+    </CardSection>
   );
 }

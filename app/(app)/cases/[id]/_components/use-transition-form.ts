@@ -5,7 +5,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import type { ApiResult } from '@/lib/api/client';
 import type { CaseDetail } from '@/lib/hunt/views';
-import { applyServerIssues } from './apply-server-issues';
+import { applyServerIssues } from '@/lib/api/apply-server-issues';
 import type { TransitionBody, TransitionSchema } from './transition-schemas';
 
 export type SendTransition = (body: TransitionBody) => Promise<ApiResult<unknown>>;

@@ -80,7 +80,7 @@ export function FieldScreen({ caseId }: { caseId: string }) {
       </header>
 
       <CaseMapClient
-        className="h-[48dvh] min-h-72"
+        className="h-[45dvh] min-h-64"
         bearings={bearings ?? []}
         fix={fix}
         reportedPosition={caseDetail.reportedPosition ?? null}
@@ -119,7 +119,8 @@ export function FieldScreen({ caseId }: { caseId: string }) {
         <Link href="/cautions">All cautions</Link>
       </p>
 
-      {canHunt && !sheet && (
+      {canHunt && (
+        // Stays under an open sheet so the focus can return to the button that opened it.
         <div className="fixed inset-x-0 bottom-0 z-[1050] border-t border-ink/15 bg-white/95 px-3 pt-2 pb-[max(0.75rem,env(safe-area-inset-bottom))] backdrop-blur">
           <div className="mx-auto flex max-w-2xl gap-2">
             <button type="button" className="btn-primary min-h-14 flex-[2] text-lg" onClick={() => setSheet('bearing')}>

@@ -1,6 +1,6 @@
 import type { InputHTMLAttributes, SelectHTMLAttributes } from 'react';
 import type { UseFormRegisterReturn } from 'react-hook-form';
-import { FieldError } from './field-error';
+import { FieldError } from '@/components/ui/field-error';
 
 type Common = { id: string; label: React.ReactNode; error?: string; hint?: React.ReactNode; hideLabel?: boolean; className?: string };
 
