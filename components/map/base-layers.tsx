@@ -1,7 +1,7 @@
 'use client';
 
 import { useMemo, useState } from 'react';
-import { ScaleControl, TileLayer } from 'react-leaflet';
+import { ScaleControl, TileLayer, AttributionControl } from 'react-leaflet';
 import { CoordinateGrid } from './coordinate-grid';
 
 /**
@@ -32,6 +32,8 @@ export function BaseLayers() {
   );
   return (
     <>
+      {/* Our own prefix: the library's name only, no flag or other symbol. */}
+      <AttributionControl prefix="Leaflet" />
       {tilesOn ? <TileLayer url={TILE_URL} attribution={TILE_ATTRIBUTION} eventHandlers={handlers} /> : <CoordinateGrid />}
       <ScaleControl position="bottomleft" metric imperial={false} />
       {!tilesOn && (

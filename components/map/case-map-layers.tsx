@@ -28,7 +28,8 @@ export function BearingLayers({ bearings, outlierIds, fix }: { bearings: Bearing
           <Polyline
             key={`${b.id}-${kind}-${b.version}`}
             positions={positions}
-            pathOptions={{ ...LINE_STYLES[kind], className: `qf-bearing qf-bearing-${kind === 'bearing' ? 'active' : kind}` }}
+            className={`qf-bearing qf-bearing-${kind === 'bearing' ? 'active' : kind}`}
+            pathOptions={LINE_STYLES[kind]}
             interactive={false}
           />
         );
@@ -52,7 +53,8 @@ function EllipseShape({ center, ellipse, alternative }: { center: LatLon; ellips
   return (
     <Polygon
       positions={ring}
-      pathOptions={{ ...LINE_STYLES[alternative ? 'ellipseAlt' : 'ellipse'], className: alternative ? 'qf-ellipse-alt' : 'qf-ellipse' }}
+      className={alternative ? 'qf-ellipse-alt' : 'qf-ellipse'}
+      pathOptions={LINE_STYLES[alternative ? 'ellipseAlt' : 'ellipse']}
       interactive={false}
     />
   );
@@ -88,9 +90,9 @@ export function TrailLayer({ fix }: { fix: FixView }) {
   if (points.length === 0) return null;
   return (
     <>
-      {line.length > 1 && <Polyline positions={line} pathOptions={{ ...LINE_STYLES.trail, className: 'qf-trail' }} interactive={false} />}
+      {line.length > 1 && <Polyline positions={line} className="qf-trail" pathOptions={LINE_STYLES.trail} interactive={false} />}
       {points.map((p, i) => (
-        <CircleMarker key={`t${i}`} center={p} radius={3} pathOptions={{ ...LINE_STYLES.trail, fillColor: '#fff', fillOpacity: 1, className: 'qf-trail-dot' }} interactive={false} />
+        <CircleMarker key={`t${i}`} center={p} radius={3} className="qf-trail-dot" pathOptions={{ ...LINE_STYLES.trail, fillColor: '#fff', fillOpacity: 1 }} interactive={false} />
       ))}
     </>
   );

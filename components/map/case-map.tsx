@@ -70,6 +70,7 @@ export default function CaseMap({ bearings, fix, reportedPosition, selectedPosit
           className="h-full w-full"
           style={{ background: PLAIN_BACKGROUND }}
           worldCopyJump
+          attributionControl={false}
         >
           <BaseLayers />
           <MapTap onTap={onMapTap} />
@@ -79,7 +80,7 @@ export default function CaseMap({ bearings, fix, reportedPosition, selectedPosit
           {reportedPosition && <ReporterMarker position={reportedPosition} />}
           {selectedPosition && <PickedPositionMarker position={selectedPosition} label="next bearing here" />}
           <SpotMarkers spots={spots} onSelect={onSpotSelect} />
-          <FitBoundsOnce points={fitPoints} complete={fix !== undefined} />
+          <FitBoundsOnce points={fitPoints} complete={fix !== undefined} refitKey={bearings.filter((b) => !b.excluded).length} />
         </MapContainer>
       </div>
       <CaseMapLegend keys={legend} />

@@ -36,14 +36,14 @@ export function CoordinateGrid() {
 }
 
 function GridLayers({ grid }: { grid: Grid }) {
-  const style = { ...LINE_STYLES.grid, className: 'qf-grid', interactive: false };
+  const style = LINE_STYLES.grid;
   return (
     <>
       {grid.lats.map((lat) => (
-        <Polyline key={`lat${lat}`} positions={[[lat, grid.west], [lat, grid.east]]} pathOptions={style} interactive={false} />
+        <Polyline key={`lat${lat}`} positions={[[lat, grid.west], [lat, grid.east]]} className="qf-grid" pathOptions={style} interactive={false} />
       ))}
       {grid.lons.map((lon) => (
-        <Polyline key={`lon${lon}`} positions={[[grid.south, lon], [grid.north, lon]]} pathOptions={style} interactive={false} />
+        <Polyline key={`lon${lon}`} positions={[[grid.south, lon], [grid.north, lon]]} className="qf-grid" pathOptions={style} interactive={false} />
       ))}
       {grid.lats.map((lat) => (
         <Marker key={`latl${lat}`} position={[lat, grid.west]} icon={gridLabelIcon(formatGridLabel(lat, grid.latStep, 'lat'), 'left')} interactive={false} keyboard={false} />

@@ -56,7 +56,7 @@ export default function PositionPicker({ value, accuracyM, center, onPick, class
   const start = value ?? center;
   return (
     <div role="region" aria-label="Pick a position on the map" data-testid="position-picker" className={`relative isolate overflow-hidden rounded-lg border border-ink/20 ${className ?? 'h-64'}`}>
-      <MapContainer center={start ? [start.lat, start.lon] : [20, 0]} zoom={start ? 16 : 2} className="h-full w-full" style={{ background: PLAIN_BACKGROUND }}>
+      <MapContainer center={start ? [start.lat, start.lon] : [20, 0]} zoom={start ? 16 : 2} className="h-full w-full" style={{ background: PLAIN_BACKGROUND }} attributionControl={false}>
         <BaseLayers />
         <MapTap onTap={onPick} />
         <FollowValue value={value} />
@@ -64,7 +64,8 @@ export default function PositionPicker({ value, accuracyM, center, onPick, class
           <Circle
             center={[value.lat, value.lon]}
             radius={accuracyM}
-            pathOptions={{ color: PALETTE.flare700, weight: 1.5, fillColor: PALETTE.flare500, fillOpacity: 0.12, className: 'qf-accuracy' }}
+            className="qf-accuracy"
+            pathOptions={{ color: PALETTE.flare700, weight: 1.5, fillColor: PALETTE.flare500, fillOpacity: 0.12 }}
             interactive={false}
           />
         )}

@@ -5,13 +5,14 @@
  * (Karney 2013) toward an invented source on open land.
  */
 import { expect, test, type Browser, type Page } from '@playwright/test';
-import { Geodesic } from 'geographiclib-geodesic';
+// GeographicLib's Direct/Inverse (thin wrappers that only adapt the CommonJS export).
+import { geodesicDirect, geodesicInverse } from '../../lib/df/internal/geodesy';
 
 const SOURCE = { lat: -31.62, lon: 129.12 };
 const SPOTS = [10, 130, 250].map((fromSource, i) => {
-  const o = Geodesic.WGS84.Direct(SOURCE.lat, SOURCE.lon, fromSource, 350 + 50 * i);
-  const az = Geodesic.WGS84.Inverse(o.lat2 as number, o.lon2 as number, SOURCE.lat, SOURCE.lon).azi1 as number;
-  return { lat: o.lat2 as number, lon: o.lon2 as number, azimuthDeg: ((az % 360) + 360) % 360 };
+  const o = geodesicDirect(SOURCE.lat, SOURCE.lon, fromSource, 350 + 50 * i);
+  const az = geodesicInverse(o.lat, o.lon, SOURCE.lat, SOURCE.lon).azi1;
+  return { lat: o.lat, lon: o.lon, azimuthDeg: ((az % 360) + 360) % 360 };
 });
 
 async function signedIn(browser: Browser, who: string, geo?: { latitude: number; longitude: number }): Promise<Page> {
@@ -40,8 +41,8 @@ test('report -> assign -> three bearings -> fix and ellipse on the map -> locate
   await member.goto('/reports/new');
   await member.getByLabel('Short title').fill('Crackle on 40 m near the old quarry');
   await member.getByText('Clicks, ticks or crackles').click();
-  await member.getByLabel('Frequency 1').fill('7.05');
-  await member.getByLabel('Unit of frequency 1').selectOption('MHz');
+  await member.getByLabel('Frequency 1', { exact: true }).fill('7.05');
+  await member.getByLabel('Unit of frequency 1', { exact: true }).selectOption('MHz');
   await expect(member.getByTestId('frequency-band').first()).toContainText('40m');
   await member.getByText('All the time').click();
   await member.getByRole('button', { name: 'Use my location' }).click();
@@ -56,7 +57,9 @@ test('report -> assign -> three bearings -> fix and ellipse on the map -> locate
   // 2. The coordinator assigns it to the demo hunter.
   const coordinator = await signedIn(browser, 'coordinator');
   await coordinator.goto(`/cases/${caseId}`);
-  await coordinator.getByLabel('Assign to').selectOption({ label: /Cleo Marchetti/ });
+  const cleo = coordinator.getByLabel('Assign to').locator('option', { hasText: 'Cleo Marchetti' });
+  await expect(cleo).toHaveCount(1);
+  await coordinator.getByLabel('Assign to').selectOption((await cleo.getAttribute('value'))!);
   await coordinator.getByTestId('assignment').getByRole('button', { name: 'Save' }).click();
   await expect(coordinator.getByTestId('assignee')).toContainText('Cleo Marchetti');
 
@@ -87,7 +90,7 @@ test('report -> assign -> three bearings -> fix and ellipse on the map -> locate
   // The numbers on screen are lib/df's: the API's fix is within a metre of the true source.
   const fix = await (await hunter.request.get(`/api/cases/${caseId}/fix`)).json();
   expect(fix.current.fix.ok).toBe(true);
-  const miss = Geodesic.WGS84.Inverse(fix.current.fix.lat, fix.current.fix.lon, SOURCE.lat, SOURCE.lon).s12 as number;
+  const miss = geodesicInverse(fix.current.fix.lat, fix.current.fix.lon, SOURCE.lat, SOURCE.lon).s12;
   expect(miss).toBeLessThan(1);
   expect(fix.locatable).toBe(true);
 

@@ -1,5 +1,4 @@
 import { featureCollection, lineIntersect, lineString } from '@turf/turf';
-import type { LineString } from 'geojson';
 import { wrapDeg180 } from './angles';
 import { geodesicPoints } from './geodesy';
 import type { PreparedLine } from './prepare-lines';
@@ -40,7 +39,7 @@ export function pairwiseIntersections(lines: PreparedLine[], lengthM: number, re
   const used = lines.slice(0, MAX_INTERSECTION_LINES);
   const segments = used.map((l) => drawnSegment(l, lengthM, refLon));
   if (segments.length < 2 || segments.some((s) => !s.flat().every(Number.isFinite))) return [];
-  const crossings = lineIntersect(featureCollection(segments.map((s) => lineString(s))), featureCollection<LineString>([]));
+  const crossings = lineIntersect(featureCollection(segments.map((s) => lineString(s))), featureCollection<ReturnType<typeof lineString>['geometry']>([]));
   const out: { lat: number; lon: number; ids: [string | undefined, string | undefined]; order: number }[] = [];
   for (const c of crossings.features) {
     const p = c.geometry.coordinates;
