@@ -21,7 +21,6 @@ const schema = z.object({
   SMTP_PASS: z.string().optional(),
   MAIL_FROM: z.string().min(3).default('Quietfix <no-reply@quietfix.example.test>'),
   MAIL_CATCHER_URL: z.union([z.url(), z.literal('')]).default('http://127.0.0.1:8025'),
-  LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error']).default('info'),
 });
 
 export type Env = z.infer<typeof schema>;
