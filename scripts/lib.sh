@@ -18,7 +18,7 @@ need_free_port() { # port, what, env var
 ensure_node_modules() {
   if [ ! -f "$ROOT/node_modules/.package-lock.json" ] || [ "$ROOT/package-lock.json" -nt "$ROOT/node_modules/.package-lock.json" ]; then
     say "installing npm dependencies (npm ci)…"
-    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error) || die "npm ci failed: check the network to the npm registry, then run npm start again."
+    (cd "$ROOT" && npm ci --include=dev --no-audit --no-fund --loglevel=error) || die "npm ci failed: check the network to the npm registry, then run npm start again."
   fi
 }
 

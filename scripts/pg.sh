@@ -8,7 +8,7 @@
 # .data/NAME when postgres can reach it, else /tmp/quietfix-<hash of this checkout>-NAME.
 source "$(dirname "$0")/lib.sh"
 
-as_pg() { if is_root; then runuser -u postgres -- "$@"; else "$@"; fi; }
+as_pg() { if is_root; then (cd / && runuser -u postgres -- "$@"); else "$@"; fi; }
 
 data_dir() {
   local name=$1 rec="$DATA/$1.path"

@@ -12,14 +12,14 @@ export NEXTAUTH_URL="${NEXTAUTH_URL:-$APP_URL}"
 export CATCHER_SMTP_PORT="${CATCHER_SMTP_PORT:-1025}" CATCHER_HTTP_PORT="${CATCHER_HTTP_PORT:-8025}"
 export SMTP_HOST="${SMTP_HOST:-127.0.0.1}" SMTP_PORT="${SMTP_PORT:-$CATCHER_SMTP_PORT}"
 export MAIL_CATCHER_URL="${MAIL_CATCHER_URL-http://127.0.0.1:$CATCHER_HTTP_PORT}"
-export NODE_ENV=production
+# NODE_ENV stays unset here: npm ci must install the build tools (dev dependencies); the server runs as production.
 HOSTNAME_BIND="${HOST:-127.0.0.1}"
 
-catcher_pid=""; app_pid=""; pg_started=0
+catcher_pid=""; app_pid=""; worker_pid=""; pg_started=0
 cleanup() {
   trap - INT TERM EXIT
   say "stopping…"
-  kill_group "$app_pid"; kill_group "$catcher_pid"
+  kill_group "$app_pid"; kill_group "$catcher_pid"; kill_group "$worker_pid"
   [ "$pg_started" = 1 ] && bash "$ROOT/scripts/pg.sh" down pg || true
   rm -f "$DATA/start.pids"
 }
@@ -45,8 +45,10 @@ if [ -n "$MAIL_CATCHER_URL" ]; then
 fi
 
 ensure_build
-app_pid=$(spawn "$DATA/app.log" node node_modules/next/dist/bin/next start -p "$PORT" -H "$HOSTNAME_BIND")
-echo "$app_pid $catcher_pid" >"$DATA/start.pids"
+app_pid=$(spawn "$DATA/app.log" env NODE_ENV=production node node_modules/next/dist/bin/next start -p "$PORT" -H "$HOSTNAME_BIND")
+# Delivers queued notices and alerts (retries, reminders); see lib/notices/README.md.
+worker_pid=$(spawn "$DATA/outbox-worker.log" node --import tsx scripts/outbox-worker.ts)
+echo "$app_pid $catcher_pid $worker_pid" >"$DATA/start.pids"
 wait_http "http://127.0.0.1:$PORT/api/health" 60 || { tail -n 20 "$DATA/app.log" >&2; die "the app did not become healthy (log: .data/app.log)."; }
 
 cat <<TXT

@@ -15,10 +15,10 @@ export CATCHER_STORE="$DATA/mail-test/messages.jsonl"
 export PG_FSYNC=off
 export QUIETFIX_TEST_PG=pg-test
 
-catcher_pid=""; app_pid=""
+catcher_pid=""; app_pid=""; worker_pid=""
 cleanup() {
   trap - INT TERM EXIT
-  kill_group "$app_pid"; kill_group "$catcher_pid"
+  kill_group "$app_pid"; kill_group "$catcher_pid"; kill_group "$worker_pid"
   bash "$ROOT/scripts/pg.sh" down pg-test >/dev/null 2>&1 || true
   rm -f "$DATA/test.pids"
 }
@@ -43,7 +43,9 @@ rm -f "$CATCHER_STORE"
 catcher_pid=$(spawn "$DATA/mail-catcher-test.log" node --import tsx scripts/mail-catcher.ts)
 ensure_build
 app_pid=$(spawn "$DATA/app-test.log" env NODE_ENV=production node node_modules/next/dist/bin/next start -p "$TEST_PORT" -H 127.0.0.1)
-echo "$app_pid $catcher_pid" >"$DATA/test.pids"
+# The outbox worker, polling often so tests see mail quickly; short backoff and lease for outage tests.
+worker_pid=$(spawn "$DATA/outbox-worker-test.log" env OUTBOX_POLL_MS=300 OUTBOX_BACKOFF_BASE_MS=500 OUTBOX_LEASE_MS=5000 node --import tsx scripts/outbox-worker.ts)
+echo "$app_pid $catcher_pid $worker_pid" >"$DATA/test.pids"
 wait_http "$MAIL_CATCHER_URL/" 20 || die "the test mail catcher did not start (log: .data/mail-catcher-test.log)."
 wait_http "$TEST_BASE_URL/api/health" 60 || { tail -n 20 "$DATA/app-test.log" >&2; die "the test app did not become healthy (log: .data/app-test.log)."; }
 

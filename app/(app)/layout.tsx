@@ -11,6 +11,7 @@ const NAV: { href: string; label: string; roles: Role[] }[] = [
   { href: '/invite', label: 'Invite', roles: ['admin', 'coordinator'] },
   { href: '/admin/users', label: 'People', roles: ['admin'] },
   { href: '/admin/mail', label: 'Caught mail', roles: ['admin'] },
+  { href: '/admin/templates', label: 'Letters', roles: ['admin'] },
 ];
 
 export default async function SignedInLayout({ children }: { children: React.ReactNode }) {

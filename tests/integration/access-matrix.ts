@@ -10,6 +10,8 @@ export type Row = {
   path: (ids: Record<string, string>) => string;
   body?: (who: Who) => unknown;
   expect: Record<Who, number>;
+  /** the content type of a successful answer when it is not JSON (e.g. the letter PDF) */
+  contentType?: RegExp;
 };
 
 const ALL_SIGNED_IN = { anon: 401, admin: 200, coordinator: 200, hunter: 200, member: 200 };
@@ -61,4 +63,28 @@ export const ACCESS: Row[] = [
   { name: 'read own profile', method: 'GET', path: () => '/api/profile', expect: ALL_SIGNED_IN },
   { name: 'change own profile', method: 'PATCH', path: () => '/api/profile', body: () => ({}), expect: ALL_SIGNED_IN_BAD_BODY },
   { name: 'list assignable people', method: 'GET', path: () => '/api/people/hunters', expect: COMMITTEE_READ },
+  // Notices. `locatedCase` is the demo's located case (reporter: the demo member, hunter assigned);
+  // `notice` a draft on it that access.test.ts creates. `token` is made up: always a plain 404.
+  { name: 'list notices', method: 'GET', path: (ids) => `/api/cases/${ids.locatedCase}/notices`, expect: HUNT_READ },
+  { name: 'draft a notice', method: 'POST', path: (ids) => `/api/cases/${ids.locatedCase}/notices`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
+  { name: 'read a notice', method: 'GET', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}`, expect: HUNT_READ },
+  { name: 'edit a draft notice', method: 'PATCH', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
+  { name: 'approve a notice', method: 'POST', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}/approve`, body: () => ({}), expect: COMMITTEE_BAD_BODY },
+  { name: 'send a notice', method: 'POST', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}/send`, body: () => ({}), expect: COMMITTEE_BAD_BODY },
+  {
+    name: 'retry a notice',
+    method: 'POST',
+    path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}/retry`,
+    body: () => ({}),
+    // allowed, then refused because nothing failed: 422
+    expect: { anon: 401, admin: 422, coordinator: 422, hunter: 403, member: 403 },
+  },
+  { name: 'record a letter delivered', method: 'POST', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}/delivered`, body: () => ({}), expect: COMMITTEE_BAD_BODY },
+  { name: 'preview a notice', method: 'GET', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}/preview`, expect: HUNT_READ },
+  { name: 'print a letter', method: 'GET', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}/letter`, expect: HUNT_READ, contentType: /application\/pdf/ },
+  { name: 'list templates', method: 'GET', path: () => '/api/templates', expect: ADMIN_ONLY },
+  { name: 'read a template', method: 'GET', path: () => '/api/templates/first-notice', expect: ADMIN_ONLY },
+  { name: 'save a template', method: 'PUT', path: () => '/api/templates/first-notice', body: () => ({}), expect: { anon: 401, admin: 400, coordinator: 403, hunter: 403, member: 403 } },
+  { name: 'open a response link', method: 'GET', path: () => `/api/r/${'x'.repeat(43)}`, expect: { anon: 404, admin: 404, coordinator: 404, hunter: 404, member: 404 } },
+  { name: 'answer a notice', method: 'POST', path: () => `/api/r/${'x'.repeat(43)}/answers`, body: () => ({ kind: 'fixed-it' }), expect: { anon: 404, admin: 404, coordinator: 404, hunter: 404, member: 404 } },
 ];

@@ -22,6 +22,12 @@ beforeAll(async () => {
   const open = await api('/api/cases?q=Rasping', { session: sessions.admin });
   ids.openCase = open.json.items[0].id;
   ids.openBearing = (await api(`/api/cases/${ids.openCase}/bearings`, { session: sessions.admin })).json.items[0].id;
+  ids.locatedCase = (await api('/api/cases?q=Warbling', { session: sessions.admin })).json.items[0].id;
+  const draft = await api(`/api/cases/${ids.locatedCase}/notices`, {
+    session: sessions.coordinator,
+    body: { templateKey: 'first-notice', recipientName: 'Matrix household', postalAddress: `1 Matrix Row, Quillon ${Date.now()}` },
+  });
+  ids.notice = draft.json.notice.id;
 });
 
 describe('access matrix (401 signed out, 403 wrong role, JSON always)', () => {
@@ -29,7 +35,7 @@ describe('access matrix (401 signed out, 403 wrong role, JSON always)', () => {
   it.each(cases.map((c) => [`${c.row.method} ${c.row.name} as ${c.who} -> ${c.row.expect[c.who]}`, c] as const))('%s', async (_label, { row, who }) => {
     const r = await api(row.path(ids), { method: row.method, body: row.body?.(who), session: sessions[who] });
     expect(r.status, r.text.slice(0, 300)).toBe(row.expect[who]);
-    expect(r.headers.get('content-type')).toMatch(/application\/json/);
+    expect(r.headers.get('content-type')).toMatch(row.contentType && r.status < 400 ? row.contentType : /application\/json/);
     if (r.status >= 400) expect(typeof r.json.error).toBe('string');
   });
 });

@@ -55,6 +55,13 @@ export function CaseView({ caseId, justFiled }: { caseId: string; justFiled: boo
       <div className={`grid gap-4 ${c.can.seeHunt ? 'lg:grid-cols-2' : ''}`}>
         <div className="min-w-0 space-y-4">
           <StatusActions c={c} fix={fix} refresh={refreshAll} />
+          {c.can.seeHunt && c.status !== 'open' && (
+            <p>
+              <Link href={`/cases/${c.id}/notices`} className="btn-quiet w-full sm:w-auto" data-testid="notices-link">
+                Notices and letters
+              </Link>
+            </p>
+          )}
           <CaseDetails c={c} />
           <AssignmentCard c={c} refresh={refreshAll} />
           <CaseTimeline events={events.data} error={events.error}>

@@ -57,6 +57,22 @@ export function eventWords(e: EventView): string {
       return `${who} merged ${str(d.fromReference) ?? 'another case'} into this case`;
     case 'merged-into':
       return `${who} merged this case into ${str(d.intoReference) ?? 'another case'}`;
+    case 'notice-drafted':
+      return `${who} drafted a notice`;
+    case 'notice-approved':
+      return `${who} approved the notice`;
+    case 'notice-queued':
+      return `${who} sent the notice to the outbox`;
+    case 'notice-retried':
+      return `${who} asked the outbox to try the notice again`;
+    case 'notice-sent':
+      return d.via === 'hand'
+        ? `${who} recorded the letter as delivered by hand${str(d.deliveredOn) ? ` on ${d.deliveredOn}` : ''}`
+        : `The notice was accepted by the mail server${d.to === 'notified' ? ' — the case is now notified' : ''}`;
+    case 'recipient-answered':
+      return `The neighbour answered: ${str(d.label) ?? str(d.answer) ?? 'see below'}`;
+    case 'follow-up-prepared':
+      return 'No answer yet: a follow-up notice is drafted, waiting for approval';
     case 'duplicate-flagged':
       return `Possible duplicate of ${str(d.reference) ?? str(d.ofReference) ?? 'an earlier case'} noticed`;
     default:
@@ -65,4 +81,4 @@ export function eventWords(e: EventView): string {
 }
 
 /** The free text an event carries (a comment, or a status change's note). */
-export const eventText = (e: EventView) => str(e.data?.text) ?? str(e.data?.note);
+export const eventText = (e: EventView) => str(e.data?.text) ?? str(e.data?.note) ?? str(e.data?.message);

@@ -1,0 +1,92 @@
+'use client';
+
+import { useEffect, useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { callApi } from '@/lib/api/client';
+import { TextField } from '@/components/ui/text-field';
+import { NoticeBox } from '@/components/ui/notice-box';
+import { TEMPLATE_KEYS, TEMPLATE_TITLES } from '@/lib/notices/templates';
+import { noticeCreateSchema, type NoticeInput } from '@/lib/validation/notices';
+import type { NoticeView } from '@/lib/notices/views';
+
+type Elsewhere = { caseId: string; reference: string; title: string; status: string }[];
+
+export function ComposeForm({ caseId, onCreated }: { caseId: string; onCreated: (id: string) => void }) {
+  const [problem, setProblem] = useState<string | null>(null);
+  const [elsewhere, setElsewhere] = useState<Elsewhere>([]);
+  const { register, handleSubmit, formState, watch, reset, setError } = useForm<NoticeInput>({
+    resolver: zodResolver(noticeCreateSchema),
+    defaultValues: { templateKey: 'first-notice', recipientName: 'The householder', postalAddress: '', email: '', personalNote: '' },
+  });
+  const address = watch('postalAddress');
+
+  // Warn while typing when the same household already has an open notice on another case.
+  useEffect(() => {
+    if (!address || address.trim().length < 5) return setElsewhere([]);
+    const t = setTimeout(async () => {
+      const r = await callApi<{ sameAddressElsewhere: Elsewhere }>(`/api/cases/${caseId}/notices?address=${encodeURIComponent(address)}`);
+      if (r.ok) setElsewhere(r.data.sameAddressElsewhere);
+    }, 400);
+    return () => clearTimeout(t);
+  }, [address, caseId]);
+
+  async function onSubmit(values: NoticeInput) {
+    setProblem(null);
+    const r = await callApi<{ notice: NoticeView }>(`/api/cases/${caseId}/notices`, { body: values });
+    if (!r.ok) {
+      for (const i of r.issues ?? []) setError(i.path as keyof NoticeInput, { message: i.message });
+      return setProblem(r.error);
+    }
+    reset();
+    onCreated(r.data.notice.id);
+  }
+
+  const e = formState.errors;
+  return (
+    <form onSubmit={handleSubmit(onSubmit)} className="space-y-3" noValidate>
+      {problem && <NoticeBox tone="error">{problem}</NoticeBox>}
+      <div>
+        <label htmlFor="notice-template" className="label">
+          Kind of notice
+        </label>
+        <select id="notice-template" className="field" {...register('templateKey')}>
+          {TEMPLATE_KEYS.map((k) => (
+            <option key={k} value={k}>
+              {TEMPLATE_TITLES[k]}
+            </option>
+          ))}
+        </select>
+      </div>
+      <TextField id="notice-name" label="Recipient name" error={e.recipientName} registration={register('recipientName')} autoComplete="off" />
+      <div>
+        <label htmlFor="notice-address" className="label">
+          Postal address
+        </label>
+        <textarea id="notice-address" rows={3} className="field" aria-invalid={!!e.postalAddress} aria-describedby="notice-address-error" {...register('postalAddress')} />
+        {e.postalAddress && (
+          <p id="notice-address-error" className="mt-1 text-sm font-semibold text-alarm-600">
+            {e.postalAddress.message}
+          </p>
+        )}
+      </div>
+      {elsewhere.length > 0 && (
+        <NoticeBox tone="warn" title="This household already has a notice on another case">
+          {elsewhere.map((x) => `${x.reference} (${x.title}, ${x.status})`).join('; ')}. One calm letter is better than several: consider merging the cases or
+          waiting.
+        </NoticeBox>
+      )}
+      <TextField id="notice-email" type="email" label="E-mail (optional)" hint="Without one, print the letter and deliver it by hand." error={e.email} registration={register('email')} />
+      <div>
+        <label htmlFor="notice-note" className="label">
+          Personal note (optional)
+        </label>
+        <textarea id="notice-note" rows={3} className="field" aria-invalid={!!e.personalNote} {...register('personalNote')} />
+        {e.personalNote && <p className="mt-1 text-sm font-semibold text-alarm-600">{e.personalNote.message}</p>}
+      </div>
+      <button type="submit" className="btn-primary w-full sm:w-auto" disabled={formState.isSubmitting}>
+        Save draft
+      </button>
+    </form>
+  );
+}

@@ -1,0 +1,114 @@
+'use client';
+
+import { useRef, useState } from 'react';
+import { callApi } from '@/lib/api/client';
+import { NoticeBox } from '@/components/ui/notice-box';
+import { TEMPLATE_TITLES, type TemplateKey } from '@/lib/notices/templates';
+import type { NoticeView } from '@/lib/notices/views';
+import { NoticePreview } from './notice-preview';
+
+const today = () => new Date().toISOString().slice(0, 10);
+
+export function NoticeCard({
+  caseId,
+  n,
+  can,
+  open,
+  onToggle,
+  onChanged,
+}: {
+  caseId: string;
+  n: NoticeView;
+  can: { draft: boolean; decide: boolean };
+  open: boolean;
+  onToggle: () => void;
+  onChanged: () => void;
+}) {
+  const base = `/api/cases/${caseId}/notices/${n.id}`;
+  const [busy, setBusy] = useState(false);
+  const [problem, setProblem] = useState<string | null>(null);
+  const [deliveredOn, setDeliveredOn] = useState(today());
+  // One key per card: a double click or a retry of the same request queues the notice once.
+  const sendKey = useRef<string>(typeof crypto !== 'undefined' && 'randomUUID' in crypto ? crypto.randomUUID() : `${n.id}-${Date.now()}`);
+
+  async function act(path: string, body: unknown) {
+    setBusy(true);
+    setProblem(null);
+    const r = await callApi(`${base}/${path}`, { body });
+    setBusy(false);
+    if (!r.ok) setProblem(r.error);
+    onChanged();
+  }
+
+  const waiting = n.status === 'queued' && n.delivery;
+  return (
+    <article className="card space-y-2" aria-labelledby={`notice-${n.id}`}>
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h3 id={`notice-${n.id}`} className="font-bold break-words">
+          {TEMPLATE_TITLES[n.templateKey as TemplateKey] ?? n.templateKey} to {n.recipientName}
+        </h3>
+        <span className="rounded-full bg-hush-50 px-2 py-0.5 text-sm font-semibold" data-testid="notice-status">
+          {n.statusLabel}
+        </span>
+      </div>
+      <p className="text-sm whitespace-pre-line text-ink-soft break-words">{n.postalAddress}</p>
+      {n.email && <p className="text-sm break-all">{n.email}</p>}
+      {waiting && n.delivery!.lastError && (
+        <NoticeBox tone="warn" title="Waiting to send">
+          The mail server did not take it yet (try {n.delivery!.attempts}): {n.delivery!.lastError}. Quietfix keeps trying
+          {n.delivery!.nextAttemptAt ? `; next at ${new Date(n.delivery!.nextAttemptAt).toLocaleTimeString('en-GB')}` : ''}. Nothing is lost.
+        </NoticeBox>
+      )}
+      {n.status === 'failed' && n.delivery && (
+        <NoticeBox tone="error" title="Sending failed">
+          After {n.delivery.attempts} tries the mail server still refused: {n.delivery.lastError}
+        </NoticeBox>
+      )}
+      {n.answers > 0 && <p className="text-sm font-semibold">{n.answers === 1 ? 'One answer' : `${n.answers} answers`} from the household (see the timeline).</p>}
+      {problem && <NoticeBox tone="error">{problem}</NoticeBox>}
+      <div className="flex flex-wrap gap-2">
+        <button type="button" className="btn-quiet" aria-expanded={open} onClick={onToggle}>
+          {open ? 'Hide preview' : 'Preview'}
+        </button>
+        <a className="btn-quiet" href={`${base}/letter`} target="_blank" rel="noreferrer">
+          Letter (PDF)
+        </a>
+        {can.decide && n.status === 'draft' && (
+          <button type="button" className="btn-primary" disabled={busy} onClick={() => act('approve', { version: n.version })}>
+            Approve
+          </button>
+        )}
+        {can.decide && n.status === 'approved' && n.email && (
+          <button type="button" className="btn-primary" disabled={busy} onClick={() => act('send', { idempotencyKey: sendKey.current })}>
+            Send by e-mail
+          </button>
+        )}
+        {can.decide && n.status === 'failed' && (
+          <button type="button" className="btn-primary" disabled={busy} onClick={() => act('retry', {})}>
+            Try again
+          </button>
+        )}
+      </div>
+      {can.decide && (n.status === 'approved' || n.status === 'failed') && (
+        <form
+          className="flex flex-wrap items-end gap-2"
+          onSubmit={(e) => {
+            e.preventDefault();
+            act('delivered', { deliveredOn });
+          }}
+        >
+          <div>
+            <label htmlFor={`delivered-${n.id}`} className="label">
+              Printed letter delivered on
+            </label>
+            <input id={`delivered-${n.id}`} type="date" className="field" max={today()} value={deliveredOn} onChange={(e) => setDeliveredOn(e.target.value)} />
+          </div>
+          <button type="submit" className="btn-quiet" disabled={busy}>
+            Mark delivered
+          </button>
+        </form>
+      )}
+      {open && <NoticePreview url={`${base}/preview`} version={n.version} />}
+    </article>
+  );
+}

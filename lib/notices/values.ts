@@ -1,0 +1,63 @@
+import type { Knex } from 'knex';
+import type { CaseRow } from '@/db/types';
+import type { FrozenNotice, NoticeRow } from '@/db/notices';
+import { getTemplate } from '@/db/templates';
+import { noticeConfig } from './config';
+import { deriveToken } from './token';
+import { renderNotice, wrapHtml, type Rendered } from './render';
+import type { PlaceholderValues } from './templates';
+
+export const longDate = (d: Date | string) =>
+  new Date(d).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+
+export const responseLink = (token: string) => `${noticeConfig().APP_URL.replace(/\/$/, '')}/r/${token}`;
+
+/** Shown in previews before approval, when no link exists yet. */
+export const LINK_NOT_YET = '(the private response link is made when the notice is approved)';
+
+/**
+ * The placeholder values for one notice, from the case, the club settings and the notice.
+ * The reporter's name is filled only when the reporter agreed to share it.
+ */
+export async function buildValues(
+  q: Knex,
+  c: Pick<CaseRow, 'reference' | 'reporterId' | 'consentShareName'>,
+  n: Pick<NoticeRow, 'recipientName' | 'personalNote' | 'followUpOf'>,
+  p: { senderName: string; noticeDate: Date; expiresOn: Date | null },
+): Promise<PlaceholderValues> {
+  const club = (await q('club_settings').where({ id: 1 }).first('club_name', 'contact_email')) ?? { club_name: 'Quietfix club', contact_email: 'committee@example.test' };
+  const reporter = c.consentShareName && c.reporterId ? await q('users').where({ id: c.reporterId }).first('name') : undefined;
+  const first = n.followUpOf ? await q('notices').where({ id: n.followUpOf }).first('sent_at', 'delivered_on', 'approved_at') : undefined;
+  const firstDate = first ? (first.sent_at ?? first.delivered_on ?? first.approved_at) : null;
+  return {
+    recipientName: n.recipientName,
+    clubName: club.club_name,
+    clubContactEmail: club.contact_email,
+    caseReference: c.reference,
+    senderName: p.senderName,
+    personalNote: n.personalNote,
+    reporterName: reporter?.name ?? '',
+    noticeDate: longDate(p.noticeDate),
+    expiresOn: p.expiresOn ? longDate(p.expiresOn) : '',
+    firstNoticeDate: firstDate ? longDate(firstDate) : 'an earlier date',
+  };
+}
+
+export type NoticeMessage = Rendered & { fullHtml: string; link: string | null; clubName: string; values: PlaceholderValues };
+
+/** The approved notice as sent: its frozen texts and values, plus the derived response link. */
+export function renderFrozen(n: Pick<NoticeRow, 'id' | 'tokenNonce'> & { frozen: FrozenNotice }): NoticeMessage {
+  const link = n.tokenNonce ? responseLink(deriveToken(n.id, n.tokenNonce)) : null;
+  const r = renderNotice(n.frozen, { ...n.frozen.values, responseLink: link ?? LINK_NOT_YET });
+  const clubName = n.frozen.values.clubName ?? '';
+  return { ...r, fullHtml: wrapHtml(r.html, clubName), link, clubName, values: n.frozen.values };
+}
+
+/** What the notice would say now: frozen if approved, else the current template and values. */
+export async function renderCurrent(q: Knex, c: CaseRow, n: NoticeRow, senderName: string): Promise<NoticeMessage> {
+  if (n.frozen) return renderFrozen({ ...n, frozen: n.frozen });
+  const tpl = (await getTemplate(n.templateKey, q))!;
+  const expires = new Date(Date.now() + noticeConfig().NOTICE_TOKEN_DAYS * 86_400_000);
+  const values = await buildValues(q, c, n, { senderName, noticeDate: new Date(), expiresOn: expires });
+  return renderFrozen({ id: n.id, tokenNonce: null, frozen: { subject: tpl.subject, body: tpl.body, values } });
+}

@@ -1,0 +1,105 @@
+import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
+
+/**
+ * A notice's whole life in the browser: compose from the demo's located case, approve, send
+ * through the outbox worker and real SMTP, read it from the catcher, open the link as the
+ * neighbour, answer, and see the answer on the case before resolving it.
+ */
+const CATCHER = process.env.MAIL_CATCHER_URL ?? 'http://127.0.0.1:8125';
+
+async function signInAs(page: Page, email: string) {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill('quietfix-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page).toHaveURL(/\/cases/);
+}
+
+async function caughtLink(request: APIRequestContext, to: string): Promise<{ subject: string; link: string }> {
+  let found: { subject: string; text: string } | undefined;
+  await expect
+    .poll(async () => {
+      const r = await request.get(`${CATCHER}/api/v2/search?kind=to&query=${encodeURIComponent(to)}`);
+      found = (await r.json()).items[0];
+      return !!found;
+    }, { timeout: 20_000 })
+    .toBe(true);
+  return { subject: found!.subject, link: found!.text.match(/https?:\/\/\S+\/r\/[A-Za-z0-9_-]{43}/)![0] };
+}
+
+const demoLocatedCaseId = async (page: Page) => (await (await page.request.get('/api/cases?q=Warbling')).json()).items[0].id as string;
+
+test('a coordinator notifies a household, the neighbour answers, and the case is resolved', async ({ page, browser }, info) => {
+  test.skip(info.project.name !== 'desktop', 'the demo case goes through this once; the phone run checks the response page');
+  await signInAs(page, 'coordinator@example.test');
+  const caseId = await demoLocatedCaseId(page);
+  expect((await (await page.request.get(`/api/cases/${caseId}`)).json()).status).toBe('located');
+
+  await page.goto(`/cases/${caseId}/notices`);
+  const email = `e2e-household-${Date.now()}@example.test`;
+  await page.getByLabel('Kind of notice').selectOption('first-notice');
+  await page.getByLabel('Recipient name').fill('The householder');
+  await page.getByLabel('Postal address').fill(`5 Heath Rise\nQuillon ${Date.now()}`);
+  await page.getByLabel('E-mail (optional)').fill(email);
+  await page.getByLabel('Personal note (optional)').fill('We live two streets away and can bring ferrite clips.');
+  await page.getByRole('button', { name: 'Save draft' }).click();
+
+  const card = page.getByRole('article').filter({ hasText: email });
+  await expect(card.getByTestId('notice-status')).toHaveText('draft');
+  await expect(card.frameLocator('iframe[title="E-mail preview"]').getByText('We live two streets away')).toBeVisible();
+  await card.getByRole('button', { name: 'Approve' }).click();
+  await card.getByRole('button', { name: 'Send by e-mail' }).click();
+  await expect(card.getByTestId('notice-status')).toHaveText('sent', { timeout: 20_000 });
+
+  const { subject, link } = await caughtLink(page.request, email);
+  expect(subject).toBe('A friendly note from Quillon Heath Radio Club about radio reception near you');
+
+  // The neighbour: no account, a fresh browser context.
+  const neighbourContext = await browser.newContext();
+  const neighbour = await neighbourContext.newPage();
+  await neighbour.goto(link);
+  await expect(neighbour.getByRole('heading', { level: 1 })).toHaveText(subject);
+  await expect(neighbour.getByText('We live two streets away and can bring ferrite clips.')).toBeVisible();
+  await expect(neighbour.getByRole('img', { name: /ferrite clip/ })).toBeVisible();
+  await neighbour.getByLabel('Please contact me').check();
+  await neighbour.getByLabel('How can we reach you?').fill('0123 555 0199 after six');
+  await neighbour.getByLabel('Anything else? (optional)').fill('I have an aquarium heater in the garage.');
+  await neighbour.getByRole('button', { name: 'Send my answer' }).click();
+  await expect(neighbour.getByText('Your answer has reached the club.')).toBeVisible();
+  await neighbourContext.close();
+
+  const events = (await (await page.request.get(`/api/cases/${caseId}/events`)).json()).items;
+  expect(events.find((e: { kind: string }) => e.kind === 'recipient-answered')).toMatchObject({
+    data: { answer: 'contact-me', contact: '0123 555 0199 after six', text: 'I have an aquarium heater in the garage.' },
+  });
+  expect(events.find((e: { kind: string }) => e.kind === 'notice-sent')).toMatchObject({ data: { from: 'located', to: 'notified' } });
+
+  const notified = await (await page.request.get(`/api/cases/${caseId}`)).json();
+  expect(notified.status).toBe('notified');
+  const resolved = await page.request.post(`/api/cases/${caseId}/transitions`, { data: { to: 'resolved', outcome: 'fixed-by-owner', version: notified.version } });
+  expect(resolved.status()).toBe(200);
+  expect((await resolved.json()).status).toBe('resolved');
+});
+
+test('the response page reads well on a 360-px phone', async ({ page }, info) => {
+  await signInAs(page, 'coordinator@example.test');
+  const caseId = await demoLocatedCaseId(page);
+  const email = `e2e-phone-${info.project.name}-${Date.now()}@example.test`;
+  const created = await page.request.post(`/api/cases/${caseId}/notices`, {
+    data: { templateKey: 'thank-you', recipientName: 'The householder', postalAddress: `9 Heath Rise, Quillon ${Date.now()}`, email },
+  });
+  expect(created.status()).toBe(201);
+  const n = (await created.json()).notice;
+  expect((await page.request.post(`/api/cases/${caseId}/notices/${n.id}/approve`, { data: { version: n.version } })).status()).toBe(200);
+  expect((await page.request.post(`/api/cases/${caseId}/notices/${n.id}/send`, { data: { idempotencyKey: `phone-${n.id}` } })).status()).toBe(202);
+  const { link } = await caughtLink(page.request, email);
+  await page.goto(link);
+  await expect(page.getByRole('heading', { name: 'Your answer' })).toBeVisible();
+  await page.getByLabel('I have fixed it').check();
+  await page.getByRole('button', { name: 'Send my answer' }).click();
+  await expect(page.getByText('Your answer has reached the club.')).toBeVisible();
+  if (info.project.name === 'phone-360') {
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+  }
+});
