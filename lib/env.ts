@@ -21,6 +21,15 @@ const schema = z.object({
   SMTP_PASS: z.string().optional(),
   MAIL_FROM: z.string().min(3).default('Quietfix <no-reply@quietfix.example.test>'),
   MAIL_CATCHER_URL: z.union([z.url(), z.literal('')]).default('http://127.0.0.1:8025'),
+  // Notices and the outbox worker (lib/notices; the worker process reads the same settings).
+  NOTICE_TOKEN_SECRET: z.string().min(16).optional(),
+  NOTICE_TOKEN_DAYS: z.coerce.number().int().min(1).max(3650).default(90),
+  OUTBOX_BACKOFF_BASE_MS: z.coerce.number().int().min(1).default(5000),
+  OUTBOX_BACKOFF_CAP_MS: z.coerce.number().int().min(1).default(15 * 60_000),
+  OUTBOX_LEASE_MS: z.coerce.number().int().min(100).default(60_000),
+  OUTBOX_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(100).default(8),
+  OUTBOX_BATCH_SIZE: z.coerce.number().int().min(1).max(500).default(10),
+  OUTBOX_POLL_MS: z.coerce.number().int().min(50).default(2000),
 });
 
 export type Env = z.infer<typeof schema>;
