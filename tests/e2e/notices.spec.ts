@@ -66,6 +66,7 @@ test('a coordinator notifies a household, the neighbour answers, and the case is
   await neighbour.getByLabel('Anything else? (optional)').fill('I have an aquarium heater in the garage.');
   await neighbour.getByRole('button', { name: 'Send my answer' }).click();
   await expect(neighbour.getByText('Your answer has reached the club.')).toBeVisible();
+  await neighbour.screenshot({ path: info.outputPath('response-page.png'), fullPage: true });
   await neighbourContext.close();
 
   const events = (await (await page.request.get(`/api/cases/${caseId}/events`)).json()).items;
@@ -74,11 +75,18 @@ test('a coordinator notifies a household, the neighbour answers, and the case is
   });
   expect(events.find((e: { kind: string }) => e.kind === 'notice-sent')).toMatchObject({ data: { from: 'located', to: 'notified' } });
 
-  const notified = await (await page.request.get(`/api/cases/${caseId}`)).json();
-  expect(notified.status).toBe('notified');
-  const resolved = await page.request.post(`/api/cases/${caseId}/transitions`, { data: { to: 'resolved', outcome: 'fixed-by-owner', version: notified.version } });
-  expect(resolved.status()).toBe(200);
-  expect((await resolved.json()).status).toBe('resolved');
+  // The coordinator sees the answer on the case page and closes the case there.
+  await page.goto(`/cases/${caseId}`);
+  await expect(page.getByTestId('case-status')).toContainText('notified');
+  await expect(page.getByTestId('timeline')).toContainText('The neighbour answered');
+  await page.getByRole('button', { name: 'Close with an outcome' }).click();
+  const form = page.getByRole('form', { name: 'Close with an outcome' });
+  await form.getByLabel('Outcome').selectOption('fixed-by-owner');
+  await form.getByLabel('Level before (dBm)').fill('-85');
+  await form.getByLabel('Level after (dBm)').fill('-104');
+  await form.getByRole('button', { name: 'Resolve the case' }).click();
+  await expect(page.getByTestId('case-status')).toContainText('resolved');
+  await page.screenshot({ path: info.outputPath('resolved-case.png'), fullPage: true });
 });
 
 test('the response page reads well on a 360-px phone', async ({ page }, info) => {

@@ -37,44 +37,10 @@ export default async function CasesPage({ searchParams }: { searchParams: Promis
           </label>
           <input id="q" name="q" defaultValue={filter.q} className="field w-56" placeholder="title or reference" />
         </div>
-        <div>
-          <label htmlFor="status" className="label">
-            Status
-          </label>
-          <select id="status" name="status" defaultValue={filter.status ?? ''} className="field w-40">
-            <option value="">any</option>
-            {CASE_STATUSES.map((s) => (
-              <option key={s} value={s}>
-                {s}
-              </option>
-            ))}
-          </select>
-        </div>
-        <div>
-          <label htmlFor="band" className="label">
-            Band
-          </label>
-          <select id="band" name="band" defaultValue={filter.band ?? ''} className="field w-32">
-            <option value="">any</option>
-            {BANDS.map((b) => (
-              <option key={b.name}>{b.name}</option>
-            ))}
-          </select>
-        </div>
+        <FilterSelect name="status" label="Status" value={filter.status} anyLabel="any" width="w-40" options={CASE_STATUSES.map((x) => ({ value: x, label: x }))} />
+        <FilterSelect name="band" label="Band" value={filter.band} anyLabel="any" width="w-32" options={BANDS.map((b) => ({ value: b.name, label: b.name }))} />
         {committee && (
-          <div>
-            <label htmlFor="assigneeId" className="label">
-              Hunter
-            </label>
-            <select id="assigneeId" name="assigneeId" defaultValue={filter.assigneeId ?? ''} className="field w-48">
-              <option value="">anyone</option>
-              {hunters.map((h) => (
-                <option key={h.id} value={h.id}>
-                  {h.name}
-                </option>
-              ))}
-            </select>
-          </div>
+          <FilterSelect name="assigneeId" label="Hunter" value={filter.assigneeId} anyLabel="anyone" width="w-48" options={hunters.map((h) => ({ value: h.id, label: h.name }))} />
         )}
         <button className="btn-quiet">Filter</button>
         <Link href="/reports/new" className="btn-primary ml-auto">
@@ -102,6 +68,25 @@ export default async function CasesPage({ searchParams }: { searchParams: Promis
       <p className="text-sm text-ink-faint">
         Before you go out, read the <Link href="/cautions">cautions</Link>.
       </p>
+    </div>
+  );
+}
+
+/** One labelled filter of the search form (a plain GET form: works without JavaScript). */
+function FilterSelect(p: { name: string; label: string; value?: string; anyLabel: string; width: string; options: { value: string; label: string }[] }) {
+  return (
+    <div>
+      <label htmlFor={p.name} className="label">
+        {p.label}
+      </label>
+      <select id={p.name} name={p.name} defaultValue={p.value ?? ''} className={`field ${p.width}`}>
+        <option value="">{p.anyLabel}</option>
+        {p.options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </select>
     </div>
   );
 }
