@@ -51,16 +51,32 @@ const DECREMENT_TOLERANCE = 1e-8;
 /** Beyond this a "fix" is not a local noise source: the lines are effectively parallel. */
 const MAX_FIX_RANGE_M = 1_000_000;
 
-function linearise(lines: PreparedLine[], lat: number, lon: number): { rows: LineRow[]; normal: Sym2; gradient: [number, number]; cost: number } {
-  const rows: LineRow[] = new Array(lines.length);
-  let a = 0, b = 0, c = 0, gE = 0, gN = 0, cost = 0;
-  for (let i = 0; i < lines.length; i++) {
+/** The sums of one Gauss-Newton step at a point, with the per-line geodesics kept in typed arrays. */
+type Linearisation = {
+  normal: Sym2;
+  gradient: [number, number];
+  cost: number;
+  /** Shortest observer -> point distance, metres. */
+  minRangeM: number;
+  s12: Float64Array;
+  azi1: Float64Array;
+  azi2: Float64Array;
+  residual: Float64Array;
+};
+
+function linearise(lines: PreparedLine[], lat: number, lon: number): Linearisation {
+  const n = lines.length;
+  // Typed arrays instead of one object per line: the solver runs this every iteration, and with
+  // 1,000 lines the garbage collector otherwise costs more than the geodesics.
+  const s12 = new Float64Array(n), azi1 = new Float64Array(n), azi2 = new Float64Array(n), residual = new Float64Array(n);
+  let a = 0, b = 0, c = 0, gE = 0, gN = 0, cost = 0, minRangeM = Infinity;
+  for (let i = 0; i < n; i++) {
     const line = lines[i];
     const g = geodesicInverse(line.lat, line.lon, lat, lon);
     const m12 = Math.max(g.s12, 0.01);
-    const azi2 = g.azi2 * DEG;
-    const jE = Math.cos(azi2) / m12;
-    const jN = -Math.sin(azi2) / m12;
+    const az2 = g.azi2 * DEG;
+    const jE = Math.cos(az2) / m12;
+    const jN = -Math.sin(az2) / m12;
     const r = bearingResidualDeg(g.azi1, line.azimuthDeg, false) * DEG;
     const w = line.weight;
     a += w * jE * jE;
@@ -69,9 +85,27 @@ function linearise(lines: PreparedLine[], lat: number, lon: number): { rows: Lin
     gE += w * jE * r;
     gN += w * jN * r;
     cost += w * r * r;
-    rows[i] = { line, jE, jN, residualRad: r, rangeM: g.s12, aziAtFixDeg: g.azi2, aziFromObserverDeg: g.azi1 };
+    s12[i] = g.s12; azi1[i] = g.azi1; azi2[i] = g.azi2; residual[i] = r;
+    if (g.s12 < minRangeM) minRangeM = g.s12;
   }
-  return { rows, normal: [a, b, c], gradient: [gE, gN], cost };
+  return { normal: [a, b, c], gradient: [gE, gN], cost, minRangeM, s12, azi1, azi2, residual };
+}
+
+/** The per-line rows of a linearisation (built once, for the returned solution). */
+function rowsOf(lines: PreparedLine[], lin: Linearisation): LineRow[] {
+  return lines.map((line, i) => {
+    const m12 = Math.max(lin.s12[i], 0.01);
+    const az2 = lin.azi2[i] * DEG;
+    return {
+      line,
+      jE: Math.cos(az2) / m12,
+      jN: -Math.sin(az2) / m12,
+      residualRad: lin.residual[i],
+      rangeM: lin.s12[i],
+      aziAtFixDeg: lin.azi2[i],
+      aziFromObserverDeg: lin.azi1[i],
+    };
+  });
 }
 
 /** Mean of the observers' positions (via unit vectors, so the order of lines and +-180 do not matter). */
@@ -131,8 +165,8 @@ function parallelFailure(count: number): SolveFailure {
 const NEWTON_AFTER = 8;
 
 /** Hessian of half the cost (J'W r gradient) by forward differences, or null if not positive definite. */
-function numericHessian(lines: PreparedLine[], lat: number, lon: number, g: [number, number], rows: LineRow[]): Sym2 | null {
-  const h = Math.max(1e-4 * Math.min(...rows.map((r) => r.rangeM)), 1e-3);
+function numericHessian(lines: PreparedLine[], lat: number, lon: number, g: [number, number], minRangeM: number): Sym2 | null {
+  const h = Math.max(1e-4 * minRangeM, 1e-3);
   const pe = offsetEastNorth(lat, lon, h, 0);
   const pn = offsetEastNorth(lat, lon, 0, h);
   const ge = linearise(lines, pe.lat, pe.lon).gradient;
@@ -180,7 +214,7 @@ function iterate(lines: PreparedLine[], first: { lat: number; lon: number }, max
     const ridge = 1e-10 * (na + nc);
     // Gauss-Newton first; if it crawls (large residuals, curved valley), Newton with the full
     // Hessian from finite differences of the gradient, while that Hessian is positive definite.
-    const hessian = it > NEWTON_AFTER ? numericHessian(lines, lat, lon, lin.gradient, lin.rows) : null;
+    const hessian = it > NEWTON_AFTER ? numericHessian(lines, lat, lon, lin.gradient, lin.minRangeM) : null;
     const inv = (hessian && invertSym2(hessian)) || invertSym2([na + ridge, nb, nc + ridge]);
     if (!inv) return parallelFailure(lines.length);
     const fullE = -(inv[0] * lin.gradient[0] + inv[1] * lin.gradient[1]);
@@ -197,7 +231,7 @@ function iterate(lines: PreparedLine[], first: { lat: number; lon: number }, max
     // cost any more (numerical floor).
     const decrement = -(fullE * lin.gradient[0] + fullN * lin.gradient[1]);
     if (fullM < STEP_TOLERANCE_M || decrement < DECREMENT_TOLERANCE || stepM < 1e-6) {
-      return { ok: true, lat: next.lat, lon: next.lon, rows: lin.rows, normal: lin.normal, cost: lin.cost, iterations: it };
+      return { ok: true, lat: next.lat, lon: next.lon, rows: rowsOf(lines, lin), normal: lin.normal, cost: lin.cost, iterations: it };
     }
     const nextLin = linearise(lines, next.lat, next.lon);
     if (nextLin.cost > lin.cost * (1 + 1e-9) + 1e-12) {
@@ -206,7 +240,7 @@ function iterate(lines: PreparedLine[], first: { lat: number; lon: number }, max
     }
     damping = Math.min(1, damping * 2);
     lat = next.lat; lon = next.lon; lin = nextLin;
-    if (lin.rows.every((r) => r.rangeM > MAX_FIX_RANGE_M)) return parallelFailure(lines.length);
+    if (lin.minRangeM > MAX_FIX_RANGE_M) return parallelFailure(lines.length);
   }
   return { ok: false, reason: 'no-convergence', message: 'The fix computation did not settle; check the bearings for typing errors.' };
 }
