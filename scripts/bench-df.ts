@@ -24,7 +24,7 @@ function scene(count: number, seed: number): LineOfBearing[] {
 }
 
 function medianMs(runs: number, fn: () => void): number {
-  fn(); // warm-up
+  for (let i = 0; i < 15; i++) fn(); // warm-up: let the JIT settle, measure the steady state
   const times: number[] = [];
   for (let i = 0; i < runs; i++) {
     const t0 = performance.now();
@@ -61,7 +61,7 @@ function pairwiseMean(lines: LineOfBearing[]): { lat: number; lon: number } {
 
 const lines1000 = scene(1000, 7);
 const fix = estimateFix(lines1000);
-const fixMs = medianMs(21, () => estimateFix(lines1000));
+const fixMs = medianMs(41, () => estimateFix(lines1000));
 const lines12 = scene(12, 11);
 const spotsMs = medianMs(51, () => suggestNextSpots(lines12));
 const pairMs = medianMs(5, () => pairwiseMean(lines1000));

@@ -47,7 +47,7 @@ const MAX_ITERATIONS = 100;
 /** The extra starts only look for a lower minimum nearby; they give up sooner. */
 const EXTRA_START_ITERATIONS = 25;
 const STEP_TOLERANCE_M = 1e-3;
-const DECREMENT_TOLERANCE = 1e-8;
+const DECREMENT_TOLERANCE = 1e-6;
 /** Beyond this a "fix" is not a local noise source: the lines are effectively parallel. */
 const MAX_FIX_RANGE_M = 1_000_000;
 
@@ -226,7 +226,7 @@ function iterate(lines: PreparedLine[], first: { lat: number; lon: number }, max
     const stepM = fullM * damping;
     const next = offsetEastNorth(lat, lon, dE, dN);
     // Settled when the full Gauss-Newton step is under a millimetre; when the quadratic model
-    // promises a cost drop below 1e-8 (chi-square units: the optimum is within 1e-4 sigma, the
+    // promises a cost drop below 1e-6 (chi-square units: the optimum is within 1e-3 sigma, the
     // case of a long flat valley where Gauss-Newton crawls); or when no shorter step lowers the
     // cost any more (numerical floor).
     const decrement = -(fullE * lin.gradient[0] + fullN * lin.gradient[1]);
