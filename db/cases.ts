@@ -172,16 +172,14 @@ export async function insertCase(
 export async function appendEvent(
   trx: Knex,
   e: { caseId: string; actorId: string | null; kind: string; data?: Record<string, unknown>; visibility?: 'all' | 'committee' },
-): Promise<CaseEvent & { actorName: string | null }> {
+): Promise<CaseEvent> {
   const [row] = await trx('case_events')
     .insert({ case_id: e.caseId, actor_id: e.actorId, kind: e.kind, data: JSON.stringify(e.data ?? {}), visibility: e.visibility ?? 'committee' })
     .returning(['id', 'created_at']);
-  const actor = e.actorId ? await trx('users').where({ id: e.actorId }).first('name') : undefined;
   return {
     id: String(row.id),
     caseId: e.caseId,
     actorId: e.actorId,
-    actorName: actor?.name ?? null,
     kind: e.kind,
     data: e.data ?? {},
     visibility: e.visibility ?? 'committee',

@@ -41,6 +41,7 @@ export async function toCaseDetail(user: User, row: CaseRow, q: Knex = db): Prom
   const ref = (id: string | null) => refs.find((r) => r.id === id) ?? null;
 
   const assignee = person(row.assigneeId);
+  const merged = ref(row.mergedInto);
   const detail: CaseDetail = {
     id: row.id,
     reference: row.reference,
@@ -57,7 +58,7 @@ export async function toCaseDetail(user: User, row: CaseRow, q: Knex = db): Prom
     levelBeforeDbm: row.levelBeforeDbm,
     levelAfterDbm: row.levelAfterDbm,
     resolvedAt: iso(row.resolvedAt),
-    mergedInto: ref(row.mergedInto) ? { id: ref(row.mergedInto)!.id, reference: ref(row.mergedInto)!.reference } : null,
+    mergedInto: merged ? { id: merged.id, reference: merged.reference } : null,
     assignee: assignee && { id: assignee.id, name: assignee.name, callSign: assignee.callSign },
     locateThresholdM: settings.locateThresholdM,
     maxPositionAccuracyM: settings.maxPositionAccuracyM,

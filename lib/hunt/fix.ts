@@ -1,12 +1,13 @@
 import type { Knex } from 'knex';
 import { distance } from '@turf/turf';
 import { db } from '@/db';
-import { listBearings, type BearingWithAuthor } from '@/db/bearings';
+import { getBearing, listBearings, type BearingWithAuthor } from '@/db/bearings';
 import { fixTrail, insertFixSnapshot, latestFixSnapshot } from '@/db/fixes';
 import { loopCircumferences } from '@/db/users';
 import type { ClubSettings } from '@/db/types';
 import { estimateFix, sanityWarnings, suggestNextSpots, type Fix, type LineOfBearing } from '@/lib/df';
-import type { FixView } from './views';
+import { toBearingView } from './to-view';
+import type { BearingView, FixView } from './views';
 
 /** The lines lib/df works on: active bearings, true azimuths, ids = bearing ids. */
 export function toLines(bearings: Pick<BearingWithAuthor, 'id' | 'lat' | 'lon' | 'azimuthTrueDeg' | 'sigmaDeg' | 'oneWay' | 'excluded'>[]): LineOfBearing[] {
@@ -65,4 +66,10 @@ export async function fixView(caseId: string, settings: Pick<ClubSettings, 'loca
 /** A fix is good enough to call the case located when its 95 % ellipse semi-major is under the club's threshold. */
 export function isLocatable(fix: Fix | undefined, thresholdM: number): boolean {
   return !!fix?.ok && fix.ellipse.confidence >= 0.95 && fix.ellipse.semiMajorM < thresholdM;
+}
+
+/** What every bearing write answers with: the bearing as saved and the case's fix after it. */
+export async function bearingWithFix(caseId: string, bearingId: string, settings: Pick<ClubSettings, 'locateThresholdM'>): Promise<{ bearing: BearingView; fix: FixView }> {
+  const [b, fix] = await Promise.all([getBearing(caseId, bearingId), fixView(caseId, settings)]);
+  return { bearing: toBearingView(b!), fix };
 }

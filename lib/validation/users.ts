@@ -9,17 +9,18 @@ export const passwordSchema = z
   .min(10, 'Use at least 10 characters.')
   .max(200, 'Use at most 200 characters.');
 
+/** Call signs as written on a licence: letters, digits and /, stored upper-case. */
+export const callSignSchema = z
+  .string()
+  .trim()
+  .toUpperCase()
+  .regex(/^[A-Z0-9/]{3,12}$/, 'A call sign is 3–12 letters, digits or /.');
+
 export const userBaseSchema = z.object({
   email,
   name: z.string().trim().min(1, 'Enter a name.').max(120),
   role: roleSchema,
-  callSign: z
-    .string()
-    .trim()
-    .toUpperCase()
-    .regex(/^[A-Z0-9/]{3,12}$/, 'A call sign is 3–12 letters, digits or /.')
-    .nullable()
-    .optional(),
+  callSign: callSignSchema.nullable().optional(),
   active: z.boolean(),
 });
 

@@ -1,29 +1,25 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { z } from 'zod';
 import { requirePageUser } from '@/lib/auth/session';
 import { listCasesFor } from '@/db/cases';
 import { listActiveHunters } from '@/db/users';
 import { CASE_STATUSES } from '@/db/types';
 import { BANDS } from '@/lib/hunt/bands';
+import { caseFilterSchema } from '@/lib/validation/cases';
 import { pagingSchema } from '@/lib/api/paging';
 import { StatusBadge } from '@/components/status-badge';
 
 export const metadata: Metadata = { title: 'Cases' };
 
-const querySchema = z.object({
-  status: z.enum(CASE_STATUSES).optional().catch(undefined),
-  q: z.string().max(100).optional().catch(undefined),
-  band: z.string().max(20).optional().catch(undefined),
-  assigneeId: z.uuid().optional().catch(undefined),
-});
 
 const HEADINGS = { admin: 'All cases', coordinator: 'All cases', hunter: 'Cases assigned to you', member: 'Your reports' } as const;
 
 export default async function CasesPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
   const user = await requirePageUser();
   const sp = await searchParams;
-  const filter = querySchema.parse(Object.fromEntries(Object.entries(sp).filter(([, v]) => v !== '')));
+  // The API's own filter schema; a hand-edited address that does not parse just shows everything.
+  const parsed = caseFilterSchema.safeParse(Object.fromEntries(Object.entries(sp).filter(([k, v]) => v && k in caseFilterSchema.shape)));
+  const filter = parsed.success ? parsed.data : {};
   const paging = pagingSchema.catch({ page: 1, pageSize: 25 }).parse(sp);
   const committee = user.role === 'admin' || user.role === 'coordinator';
   const [{ items, total }, hunters] = await Promise.all([listCasesFor(user, filter, paging), committee ? listActiveHunters() : []]);

@@ -6,7 +6,7 @@ import { getUserById } from '@/db/users';
 import { casePatchSchema } from '@/lib/validation/cases';
 import { caseIdSchema, loadVisibleCase, toCaseDetail } from '@/lib/hunt/case-detail';
 import { assertVersion } from '@/lib/hunt/stale';
-import { badRequest, forbidden, notFound } from '@/lib/errors';
+import { badRequest, notFound } from '@/lib/errors';
 
 export const GET = route<{ id: string }>(async (_req, ctx) => {
   const { id } = caseIdSchema.parse(await ctx.params);
@@ -43,6 +43,5 @@ export const PATCH = route<{ id: string }>(async (req, ctx) => {
     }
     return (await lockCase(trx, id))!;
   });
-  if (!row) throw forbidden();
   return json(await toCaseDetail(me, row));
 });

@@ -1,13 +1,13 @@
 import { route, json, readJson } from '@/lib/api/handler';
 import { requireUser } from '@/lib/auth/session';
 import { inTransaction } from '@/db';
-import { getBearing, listBearings } from '@/db/bearings';
+import { listBearings } from '@/db/bearings';
 import { lockCase } from '@/db/cases';
 import { getClubSettings } from '@/db/settings';
 import { bearingInputSchema } from '@/lib/validation/bearings';
 import { caseIdSchema, loadVisibleCase } from '@/lib/hunt/case-detail';
 import { addBearing } from '@/lib/hunt/bearings';
-import { fixView } from '@/lib/hunt/fix';
+import { bearingWithFix } from '@/lib/hunt/fix';
 import { toBearingView } from '@/lib/hunt/to-view';
 import { forbidden } from '@/lib/errors';
 
@@ -29,5 +29,5 @@ export const POST = route<{ id: string }>(async (req, ctx) => {
   const input = bearingInputSchema.parse(await readJson(req));
   const settings = await getClubSettings();
   const saved = await inTransaction(async (trx) => addBearing(trx, me, (await lockCase(trx, id))!, settings, input));
-  return json({ bearing: toBearingView((await getBearing(id, saved.id))!), fix: await fixView(id, settings) }, 201);
+  return json(await bearingWithFix(id, saved.id, settings), 201);
 });

@@ -26,5 +26,5 @@ export const POST = route<{ id: string }>(async (req, ctx) => {
       visibility: c.premisesConfirmed ? 'committee' : 'all',
     }),
   );
-  return json(toEventView(event), 201);
+  return json(toEventView({ ...event, actorName: me.name }), 201);
 });

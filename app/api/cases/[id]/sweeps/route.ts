@@ -1,14 +1,12 @@
 import { route, json, readJson } from '@/lib/api/handler';
 import { requireUser } from '@/lib/auth/session';
 import { inTransaction } from '@/db';
-import { getBearing } from '@/db/bearings';
 import { lockCase } from '@/db/cases';
 import { getClubSettings } from '@/db/settings';
 import { sweepInputSchema } from '@/lib/validation/bearings';
 import { caseIdSchema, loadVisibleCase } from '@/lib/hunt/case-detail';
 import { addSweep } from '@/lib/hunt/bearings';
-import { fixView } from '@/lib/hunt/fix';
-import { toBearingView } from '@/lib/hunt/to-view';
+import { bearingWithFix } from '@/lib/hunt/fix';
 
 /** A rotation sweep (loop-axis angle and level readings) becomes a bearing through lib/df fitNullSweep. */
 export const POST = route<{ id: string }>(async (req, ctx) => {
@@ -18,5 +16,5 @@ export const POST = route<{ id: string }>(async (req, ctx) => {
   const input = sweepInputSchema.parse(await readJson(req));
   const settings = await getClubSettings();
   const saved = await inTransaction(async (trx) => addSweep(trx, me, (await lockCase(trx, id))!, settings, input));
-  return json({ bearing: toBearingView((await getBearing(id, saved.id))!), fix: await fixView(id, settings), sweepFit: saved.sweepFit }, 201);
+  return json({ ...(await bearingWithFix(id, saved.id, settings)), sweepFit: saved.sweepFit }, 201);
 });

@@ -8,8 +8,7 @@ import { getClubSettings } from '@/db/settings';
 import { bearingPatchSchema } from '@/lib/validation/bearings';
 import { loadVisibleCase } from '@/lib/hunt/case-detail';
 import { editBearing } from '@/lib/hunt/bearings';
-import { fixView } from '@/lib/hunt/fix';
-import { toBearingView } from '@/lib/hunt/to-view';
+import { bearingWithFix } from '@/lib/hunt/fix';
 import { notFound } from '@/lib/errors';
 
 const paramsSchema = z.object({ id: z.uuid(), bearingId: z.uuid() });
@@ -27,5 +26,5 @@ export const PATCH = route<{ id: string; bearingId: string }>(async (req, ctx) =
     if (!before) throw notFound('No such bearing on this case.');
     await editBearing(trx, me, row, settings, before, patch);
   });
-  return json({ bearing: toBearingView((await getBearing(id, bearingId))!), fix: await fixView(id, settings) });
+  return json(await bearingWithFix(id, bearingId, settings));
 });
