@@ -1,22 +1,76 @@
 import { NextResponse, type NextRequest } from 'next/server';
 import { getToken } from 'next-auth/jwt';
+import { appIsHttps, env } from '@/lib/env';
+import { pathDecodes, securityHeaders } from '@/lib/api/security-headers';
+import { sameOriginPath } from '@/lib/api/same-origin-path';
+
+/** Signed-in areas: a signed-out visit goes to /sign-in and comes back. */
+const SIGNED_IN_PREFIXES = ['/cases', '/admin', '/invite', '/profile', '/field', '/reports'];
+const needsSession = (path: string) => SIGNED_IN_PREFIXES.some((p) => path === p || path.startsWith(`${p}/`));
+
+const CALLBACK_COOKIES = ['next-auth.callback-url', '__Secure-next-auth.callback-url'];
+/** A callback target next-auth may follow: a path on this site that decodes. */
+const goodCallback = (v: string) => {
+  const path = sameOriginPath(v, env.APP_URL);
+  return path !== undefined && pathDecodes(path.split(/[?#]/)[0]);
+};
 
 /**
- * Only redirects: a signed-out visit to a signed-in page goes to /sign-in and comes back.
- * Every page, route handler and server action still checks the session itself.
+ * next-auth refuses a malformed callback URL (parameter or cookie) with a 500; drop a foreign or
+ * malformed one before it gets there, so the endpoint answers as if none had been sent.
  */
-export async function proxy(req: NextRequest) {
-  const path = req.nextUrl.pathname + req.nextUrl.search;
-  const token = await getToken({ req, secret: process.env.NEXTAUTH_SECRET });
-  if (!token) {
-    const url = req.nextUrl.clone();
-    url.pathname = '/sign-in';
-    url.search = `?next=${encodeURIComponent(path)}`;
-    return NextResponse.redirect(url);
+function dropBadCallback(req: NextRequest): URL | undefined {
+  for (const name of CALLBACK_COOKIES) {
+    const v = req.cookies.get(name)?.value;
+    if (v !== undefined && !goodCallback(v)) req.cookies.delete(name);
   }
-  const headers = new Headers(req.headers);
-  headers.set('x-quietfix-path', path);
-  return NextResponse.next({ request: { headers } });
+  const param = req.nextUrl.searchParams.get('callbackUrl');
+  if (param === null || goodCallback(param)) return undefined;
+  const url = req.nextUrl.clone();
+  url.searchParams.delete('callbackUrl');
+  return url;
 }
 
-export const config = { matcher: ['/cases/:path*', '/admin/:path*', '/invite/:path*', '/profile/:path*', '/field/:path*', '/reports/:path*'] };
+function withHeaders<R extends NextResponse>(res: R, own: Record<string, string>): R {
+  for (const [k, v] of Object.entries(own)) res.headers.set(k, v);
+  return res;
+}
+
+/**
+ * Runs before every page and route handler:
+ * - a path whose percent-encoding does not decode is a 400 JSON (API) or the not-found page,
+ *   never Next's plain-text 500;
+ * - security headers (CSP with a fresh nonce, nosniff, referrer policy, HSTS on https) on every answer;
+ * - signed-out visits to signed-in pages are redirected. Every page, route handler and server
+ *   action still checks the session itself.
+ */
+export async function proxy(req: NextRequest) {
+  const { pathname } = req.nextUrl;
+  const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString('base64');
+  const own = securityHeaders(pathname, { nonce, https: appIsHttps, dev: env.NODE_ENV === 'development', tileUrls: [env.TILE_URL, env.NEXT_PUBLIC_TILE_URL] });
+  if (!pathDecodes(pathname)) {
+    if (pathname.startsWith('/api/')) {
+      return withHeaders(NextResponse.json({ error: 'The address contains broken percent-encoding.' }, { status: 400, headers: { 'cache-control': 'no-store' } }), own);
+    }
+    return withHeaders(NextResponse.rewrite(new URL('/not-found-page', req.url)), own);
+  }
+  const path = pathname + req.nextUrl.search;
+  if (needsSession(pathname)) {
+    const token = await getToken({ req, secret: env.NEXTAUTH_SECRET, secureCookie: appIsHttps });
+    if (!token) {
+      const url = req.nextUrl.clone();
+      url.pathname = '/sign-in';
+      url.search = `?next=${encodeURIComponent(path)}`;
+      return withHeaders(NextResponse.redirect(url), own);
+    }
+  }
+  const rewriteTo = pathname.startsWith('/api/auth/') ? dropBadCallback(req) : undefined;
+  const headers = new Headers(req.headers);
+  headers.set('x-quietfix-path', path);
+  headers.set('x-nonce', nonce);
+  // Next reads the nonce from the request's policy and puts it on the scripts it renders.
+  headers.set('content-security-policy', own['Content-Security-Policy']);
+  return withHeaders(rewriteTo ? NextResponse.rewrite(rewriteTo, { request: { headers } }) : NextResponse.next({ request: { headers } }), own);
+}
+
+export const config = { matcher: ['/((?!_next/static|_next/image).*)'] };

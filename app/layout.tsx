@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from 'next';
 import localFont from 'next/font/local';
+import { connection } from 'next/server';
 import './globals.css';
 
 // Shipped with the app from the @fontsource-variable/inter package: nothing is fetched at build or run time.
@@ -19,7 +20,9 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#0b5e55' };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page renders per request so Next can put the CSP nonce from proxy.ts on its scripts.
+  await connection();
   return (
     <html lang="en" className={inter.variable}>
       <body className="min-h-dvh font-sans">{children}</body>

@@ -83,10 +83,11 @@ export async function getProfile(id: string, q: Knex = db): Promise<Profile | un
   return q('users').select(PROFILE_COLUMNS).where({ id }).first();
 }
 
+/** Writes the profile fields given; an undefined field keeps its value (knex leaves undefined out of the update). */
 export async function updateProfile(
   trx: Knex,
   id: string,
-  p: Omit<Profile, 'email' | 'role'>,
+  p: Partial<Omit<Profile, 'email' | 'role'>>,
 ): Promise<void> {
   await trx('users').where({ id }).update({
     name: p.name,

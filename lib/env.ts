@@ -7,6 +7,15 @@ import { z } from 'zod';
 const schema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   APP_URL: z.url().default('http://localhost:3000'),
+  /** Other origins whose pages may send state-changing requests (comma-separated), e.g. a second host name. */
+  TRUSTED_ORIGINS: z
+    .string()
+    .default('')
+    .transform((s) => s.split(',').map((o) => o.trim()).filter(Boolean))
+    .pipe(z.array(z.url('TRUSTED_ORIGINS must be a comma-separated list of origins such as https://club.example.test.'))),
+  /** Tile server URL template read at run time (the browser build may also carry NEXT_PUBLIC_TILE_URL); its origin joins the CSP. */
+  TILE_URL: z.string().default(''),
+  NEXT_PUBLIC_TILE_URL: z.string().default(''),
   DB_HOST: z.string().min(1).default('127.0.0.1'),
   DB_PORT: z.coerce.number().int().min(1).max(65535).default(54329),
   DB_USER: z.string().min(1).default('quietfix'),
@@ -44,3 +53,9 @@ function load(): Env {
 }
 
 export const env: Env = load();
+
+/** The origins a state-changing request may come from: APP_URL's and TRUSTED_ORIGINS'. */
+export const allowedOrigins: ReadonlySet<string> = new Set([env.APP_URL, ...env.TRUSTED_ORIGINS].map((u) => new URL(u).origin));
+
+/** True when APP_URL is https: cookies are Secure and HSTS is sent. */
+export const appIsHttps = new URL(env.APP_URL).protocol === 'https:';

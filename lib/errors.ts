@@ -18,6 +18,8 @@ export const notFound = (message = 'Not found.') => new AppError(404, message);
 export const conflict = (message: string, extra?: Record<string, unknown>) => new AppError(409, message, extra);
 export const tooManyRequests = (message: string, retryAfterS?: number) =>
   new AppError(429, message, retryAfterS ? { retryAfterS } : {});
+export const payloadTooLarge = (message: string) => new AppError(413, message);
+export const unsupportedMediaType = (message: string) => new AppError(415, message);
 export const badRequest = (message: string, extra?: Record<string, unknown>) => new AppError(400, message, extra);
 
 const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', '57P01', '57P02', '57P03', '08000', '08001', '08003', '08006']);

@@ -3,7 +3,8 @@ import CredentialsProvider from 'next-auth/providers/credentials';
 import bcrypt from 'bcryptjs';
 import { z } from 'zod';
 import { getCredentials } from '@/db/users';
-import { env } from '@/lib/env';
+import { appIsHttps, env } from '@/lib/env';
+import { sameOriginPath } from '@/lib/api/same-origin-path';
 import { clearFailures, clientOf, recordFailure } from './throttle';
 
 const credentialsSchema = z.object({ email: z.email().max(254), password: z.string().min(1).max(200) });
@@ -13,6 +14,7 @@ const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 export const authOptions: NextAuthOptions = {
   secret: env.NEXTAUTH_SECRET,
   session: { strategy: 'jwt', maxAge: 12 * 60 * 60 },
+  useSecureCookies: appIsHttps,
   pages: { signIn: '/sign-in', error: '/sign-in' },
   providers: [
     CredentialsProvider({
@@ -35,6 +37,11 @@ export const authOptions: NextAuthOptions = {
     }),
   ],
   callbacks: {
+    /** A callbackUrl (parameter or cookie) is followed only to a path on this site; anything else goes home. */
+    async redirect({ url, baseUrl }) {
+      const path = sameOriginPath(url, baseUrl);
+      return path ? new URL(path, baseUrl).href : baseUrl;
+    },
     async jwt({ token, user }) {
       if (user) {
         token.uid = user.id;

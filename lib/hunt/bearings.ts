@@ -147,7 +147,7 @@ export async function editBearing(
     });
   }
   const { version: _v, accuracyConfirmed, excluded, azimuthDeg, quality, sigmaDeg, nullWidthDeg, ...rest } = patch;
-  if (rest.positionAccuracyM !== undefined) assertAccuracy(rest.positionAccuracyM, accuracyConfirmed, settings);
+  if (rest.positionAccuracyM !== undefined) assertAccuracy(rest.positionAccuracyM, accuracyConfirmed ?? false, settings);
   const lat = rest.lat ?? before.lat;
   const lon = rest.lon ?? before.lon;
   const reference = rest.reference ?? before.reference;

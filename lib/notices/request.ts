@@ -8,6 +8,7 @@ import { caseIdSchema, loadVisibleCase } from '@/lib/hunt/case-detail';
 import { noticeIdsSchema } from '@/lib/validation/notices';
 import { requireNoticeRight } from './service';
 import { toNoticeView, type NoticeView } from './views';
+import { safeText } from '@/lib/validation/text';
 
 /**
  * The first steps of every notice handler, in the house order: params -> who is asking ->
@@ -41,5 +42,5 @@ export async function noticeView(caseId: string, noticeId: string): Promise<Noti
   return toNoticeView(n);
 }
 
-export const tokenParamsSchema = z.object({ token: z.string().max(200) });
+export const tokenParamsSchema = z.object({ token: safeText().max(200) });
 

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { CASE_STATUSES } from '@/db/types';
+import { safeText } from './text';
 
 export const SOUND_KINDS = {
   buzz: 'Rough buzz (mains hum on it)',
@@ -48,16 +49,16 @@ export const scheduleSchema = z.object({
   fromHour: z.number().int().min(0).max(23).optional(),
   toHour: z.number().int().min(0).max(24).optional(),
   pattern: z.enum(['continuous', 'intermittent']),
-  note: z.string().trim().max(300).default(''),
+  note: safeText().trim().max(300).default(''),
 });
 
 /** A member's noise report: becomes a new case. Frequencies in kHz or MHz as typed; the level is stored in dBm. */
 export const reportSchema = z
   .object({
-    title: z.string().trim().min(3, 'Give it a short title.').max(120),
+    title: safeText().trim().min(3, 'Give it a short title.').max(120),
     sound: soundKindSchema,
-    soundNote: z.string().trim().max(500).default(''),
-    description: z.string().trim().max(2000).default(''),
+    soundNote: safeText().trim().max(500).default(''),
+    description: safeText().trim().max(2000).default(''),
     frequencies: z.array(frequencySchema).min(1, 'Add at least one frequency.').max(12),
     level: levelSchema.optional(),
     schedule: scheduleSchema,
@@ -77,18 +78,18 @@ const version = z.number().int().min(1);
 export const casePatchSchema = z.object({
   version,
   assigneeId: z.uuid().nullable().optional(),
-  title: z.string().trim().min(3).max(120).optional(),
-  description: z.string().trim().max(2000).optional(),
+  title: safeText().trim().min(3).max(120).optional(),
+  description: safeText().trim().max(2000).optional(),
 });
 
 export const transitionSchema = z.discriminatedUnion('to', [
-  z.object({ to: z.literal('located'), version, evidence: z.enum(['fix', 'premises']), note: z.string().trim().max(1000).default('') }),
+  z.object({ to: z.literal('located'), version, evidence: z.enum(['fix', 'premises']), note: safeText().trim().max(1000).default('') }),
   z.object({
     to: z.literal('notified'),
     version,
     method: z.literal('hand-delivered'),
     deliveredOn: z.iso.date('Give the date the letter was delivered.'),
-    note: z.string().trim().max(1000).default(''),
+    note: safeText().trim().max(1000).default(''),
   }),
   z.object({
     to: z.literal('resolved'),
@@ -96,14 +97,14 @@ export const transitionSchema = z.discriminatedUnion('to', [
     outcome: outcomeSchema,
     levelBeforeDbm: z.number().min(-170).max(0).optional(),
     levelAfterDbm: z.number().min(-170).max(0).optional(),
-    note: z.string().trim().max(1000).default(''),
+    note: safeText().trim().max(1000).default(''),
   }),
-  z.object({ to: z.literal('open'), version, reason: z.string().trim().min(3, 'Say why the case goes back to open.').max(1000) }),
+  z.object({ to: z.literal('open'), version, reason: safeText().trim().min(3, 'Say why the case goes back to open.').max(1000) }),
 ]);
 export type TransitionInput = z.input<typeof transitionSchema>;
 
 export const commentSchema = z.object({
-  text: z.string().trim().min(1, 'Write something.').max(4000),
+  text: safeText().trim().min(1, 'Write something.').max(4000),
   /** A hunter saying the premises are confirmed (evidence a coordinator can agree to). */
   premisesConfirmed: z.boolean().default(false),
 });
@@ -113,6 +114,6 @@ export const mergeSchema = z.object({ intoCaseId: z.uuid(), version });
 export const caseFilterSchema = z.object({
   status: z.enum(CASE_STATUSES).optional(),
   assigneeId: z.uuid().optional(),
-  band: z.string().max(20).optional(),
-  q: z.string().max(100).optional(),
+  band: safeText().max(20).optional(),
+  q: safeText().max(100).optional(),
 });

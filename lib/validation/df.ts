@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { safeText } from './text';
 
 /** Longitude accepted from -540 to 540 degrees and normalised to [-180, 180). */
 const longitude = z
@@ -14,7 +15,7 @@ const longitude = z
 
 /** One line of bearing as the API accepts it (see lib/df LineOfBearing). */
 export const lineOfBearingSchema = z.object({
-  id: z.string().max(64).optional(),
+  id: safeText().max(64).optional(),
   lat: z.number().finite().min(-90).max(90),
   lon: longitude,
   /** degrees clockwise from true north; any finite number */

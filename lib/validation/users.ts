@@ -1,24 +1,25 @@
 import { z } from 'zod';
 import { ROLES } from '@/db/types';
+import { safeText } from './text';
 
 export const roleSchema = z.enum(ROLES);
 
 const email = z.email('Enter a valid e-mail address.').max(254).transform((s) => s.trim().toLowerCase());
-export const passwordSchema = z
-  .string()
+export const passwordSchema = safeText()
+  
   .min(10, 'Use at least 10 characters.')
   .max(200, 'Use at most 200 characters.');
 
 /** Call signs as written on a licence: letters, digits and /, stored upper-case. */
-export const callSignSchema = z
-  .string()
+export const callSignSchema = safeText()
+  
   .trim()
   .toUpperCase()
   .regex(/^[A-Z0-9/]{3,12}$/, 'A call sign is 3–12 letters, digits or /.');
 
 export const userBaseSchema = z.object({
   email,
-  name: z.string().trim().min(1, 'Enter a name.').max(120),
+  name: safeText().trim().min(1, 'Enter a name.').max(120),
   role: roleSchema,
   callSign: callSignSchema.nullable().optional(),
   active: z.boolean(),
@@ -34,9 +35,9 @@ export const userPatchSchema = userBaseSchema.pick({ role: true, active: true })
 export const forgotPasswordSchema = z.object({ email });
 
 export const setPasswordSchema = z
-  .object({ token: z.string().min(20).max(200), password: passwordSchema, confirm: z.string() })
+  .object({ token: safeText().min(20).max(200), password: passwordSchema, confirm: safeText() })
   .refine((v) => v.password === v.confirm, { message: 'The two passwords differ.', path: ['confirm'] });
 export type SetPasswordInput = z.input<typeof setPasswordSchema>;
 
-export const signInSchema = z.object({ email, password: z.string().min(1, 'Enter your password.') });
+export const signInSchema = z.object({ email, password: safeText().min(1, 'Enter your password.') });
 export type SignInInput = z.input<typeof signInSchema>;

@@ -93,13 +93,16 @@ test('the response page reads well on a 360-px phone', async ({ page }, info) =>
   await signInAs(page, 'coordinator@example.test');
   const caseId = await demoLocatedCaseId(page);
   const email = `e2e-phone-${info.project.name}-${Date.now()}@example.test`;
+  // page.request is not a browser page: it must say it comes from the app, as a browser would.
+  const headers = { origin: new URL(page.url()).origin };
   const created = await page.request.post(`/api/cases/${caseId}/notices`, {
+    headers,
     data: { templateKey: 'thank-you', recipientName: 'The householder', postalAddress: `9 Heath Rise, Quillon ${Date.now()}`, email },
   });
   expect(created.status()).toBe(201);
   const n = (await created.json()).notice;
-  expect((await page.request.post(`/api/cases/${caseId}/notices/${n.id}/approve`, { data: { version: n.version } })).status()).toBe(200);
-  expect((await page.request.post(`/api/cases/${caseId}/notices/${n.id}/send`, { data: { idempotencyKey: `phone-${n.id}` } })).status()).toBe(202);
+  expect((await page.request.post(`/api/cases/${caseId}/notices/${n.id}/approve`, { headers, data: { version: n.version } })).status()).toBe(200);
+  expect((await page.request.post(`/api/cases/${caseId}/notices/${n.id}/send`, { headers, data: { idempotencyKey: `phone-${n.id}` } })).status()).toBe(202);
   const { link } = await caughtLink(page.request, email);
   await page.goto(link);
   await expect(page.getByRole('heading', { name: 'Your answer' })).toBeVisible();

@@ -3,6 +3,12 @@ export const BASE_URL = process.env.TEST_BASE_URL ?? 'http://127.0.0.1:3100';
 export const CATCHER_URL = process.env.MAIL_CATCHER_URL ?? 'http://127.0.0.1:8125';
 export const DEMO_PASSWORD = 'quietfix-demo';
 
+/**
+ * State-changing requests must say they come from the app's own pages (lib/api/request-guard.ts):
+ * the test client sends `Origin: <the app>` like a browser does. A test may override it.
+ */
+export const APP_ORIGIN = new URL(BASE_URL).origin;
+
 export type Session = { cookie: string; email: string };
 
 function mergeCookies(prev: string, res: Response): string {
@@ -23,7 +29,7 @@ export async function postCredentials(email: string, password: string, extraHead
   const res = await fetch(`${BASE_URL}/api/auth/callback/credentials`, {
     method: 'POST',
     redirect: 'manual',
-    headers: { 'content-type': 'application/x-www-form-urlencoded', cookie, ...extraHeaders },
+    headers: { 'content-type': 'application/x-www-form-urlencoded', origin: APP_ORIGIN, cookie, ...extraHeaders },
     body: new URLSearchParams({ csrfToken, email, password, json: 'true' }),
   });
   cookie = mergeCookies(cookie, res);
@@ -41,6 +47,7 @@ export async function api(path: string, opts: { method?: string; body?: unknown;
     method: opts.method ?? (opts.body === undefined ? 'GET' : 'POST'),
     redirect: 'manual',
     headers: {
+      origin: APP_ORIGIN,
       ...(opts.body === undefined ? {} : { 'content-type': 'application/json' }),
       ...(opts.session ? { cookie: opts.session.cookie } : {}),
       ...opts.headers,

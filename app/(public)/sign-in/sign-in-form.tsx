@@ -8,11 +8,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { signInSchema, type SignInInput } from '@/lib/validation/users';
 import { TextField } from '@/components/ui/text-field';
 import { NoticeBox } from '@/components/ui/notice-box';
+import { sameOriginPath } from '@/lib/api/same-origin-path';
 
-/** Only same-site paths are followed after sign-in. */
-function safeNext(next: string | null) {
-  return next && next.startsWith('/') && !next.startsWith('//') ? next : '/cases';
-}
 
 export function SignInForm() {
   const router = useRouter();
@@ -34,7 +31,8 @@ export function SignInForm() {
       if (!res.ok || (typeof body.url === 'string' && body.url.includes('error='))) {
         return setProblem('That e-mail and password do not match an active account.');
       }
-      router.replace(safeNext(params.get('next')));
+      // Only a path on this site is followed after sign-in.
+      router.replace(sameOriginPath(params.get('next'), window.location.origin, '/cases'));
       router.refresh();
     } catch {
       setProblem('Could not reach Quietfix. Check your connection and try again.');

@@ -1,10 +1,10 @@
 import { db } from '@/db';
-import { json } from '@/lib/api/handler';
+import { json, route } from '@/lib/api/handler';
 
 export const dynamic = 'force-dynamic';
 
 /** 200 {ok, db: "up"} when PostgreSQL answers within 3 s; 503 otherwise (never hangs). */
-export async function GET() {
+export const GET = route(async () => {
   try {
     await Promise.race([
       db.raw('select 1'),
@@ -15,4 +15,4 @@ export async function GET() {
     console.error('[quietfix] health: database not answering:', (err as Error).message);
     return json({ ok: false, db: 'down' }, 503);
   }
-}
+});

@@ -9,8 +9,11 @@ const nextAuth = NextAuth(authOptions);
 
 export const GET = nextAuth;
 
-/** Credential sign-ins pass the throttle first: too many failures -> 429 with a plain message. */
-export const POST = route<{ nextauth: string[] }>(async (req: NextRequest, ctx: RouteContext<{ nextauth: string[] }>) => {
+/**
+ * Credential sign-ins pass the throttle first: too many failures -> 429 with a plain message.
+ * next-auth's POSTs are forms (its own CSRF token stays); route() still checks their Origin.
+ */
+export const POST = route<{ nextauth: string[] }>({ body: 'form' }, async (req: NextRequest, ctx: RouteContext<{ nextauth: string[] }>) => {
   const { nextauth } = await ctx.params;
   if (nextauth?.[0] === 'callback' && nextauth[1] === 'credentials') {
     const form = await req.clone().formData().catch(() => undefined);

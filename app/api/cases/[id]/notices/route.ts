@@ -7,8 +7,9 @@ import { createDraft, noticeAccess } from '@/lib/notices/service';
 import { toNoticeView } from '@/lib/notices/views';
 import { noticeCreateSchema } from '@/lib/validation/notices';
 import { z } from 'zod';
+import { safeText } from '@/lib/validation/text';
 
-const listQuery = z.object({ address: z.string().max(400).optional() });
+const listQuery = z.object({ address: safeText().max(400).optional() });
 
 /**
  * The case's notices, newest first. `?address=` also answers which other unresolved cases
