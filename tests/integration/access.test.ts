@@ -1,5 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { api, signIn, type Session } from '../support/http';
+import { api, APP_ORIGIN, BASE_URL, signIn, type Session } from '../support/http';
+import { dbState } from '../support/db-state';
 import { ACCESS, type Who } from './access-matrix';
 
 const WHO: Who[] = ['anon', 'admin', 'coordinator', 'hunter', 'member'];
@@ -37,6 +38,68 @@ describe('access matrix (401 signed out, 403 wrong role, JSON always)', () => {
     expect(r.status, r.text.slice(0, 300)).toBe(row.expect[who]);
     expect(r.headers.get('content-type')).toMatch(row.contentType && r.status < 400 ? row.contentType : /application\/json/);
     if (r.status >= 400) expect(typeof r.json.error).toBe('string');
+  });
+});
+
+/**
+ * Every state-changing row of the matrix (and next-auth's own POSTs), as a signed-in admin, from
+ * places that are not the app: refused before anything runs, and nothing written.
+ */
+describe('cross-site and non-JSON state changes are refused (403 / 415)', () => {
+  const APP = new URL(APP_ORIGIN);
+  const OTHER_PORT = `${APP.protocol}//${APP.hostname}:${Number(APP.port || 80) + 1}`;
+  const AUTH_POSTS = [
+    { name: 'next-auth sign-in', method: 'POST', path: () => '/api/auth/callback/credentials' },
+    { name: 'next-auth sign-out', method: 'POST', path: () => '/api/auth/signout' },
+  ];
+  const rows = [...ACCESS.filter((r) => r.method !== 'GET'), ...AUTH_POSTS];
+  const ATTEMPTS: { label: string; headers: Record<string, string>; status: number }[] = [
+    { label: 'from another site', headers: { origin: 'https://elsewhere.example.test' }, status: 403 },
+    { label: 'from another port of this host', headers: { origin: OTHER_PORT }, status: 403 },
+    { label: 'with Origin "null" (sandboxed page)', headers: { origin: 'null' }, status: 403 },
+    { label: 'with only a foreign Referer', headers: { referer: 'https://elsewhere.example.test/page' }, status: 403 },
+    { label: 'with neither Origin nor Referer', headers: {}, status: 403 },
+  ];
+  let before: Awaited<ReturnType<typeof dbState>>;
+  const watched = () => ({ cases: [ids.openCase, ids.locatedCase], bearings: [ids.openBearing], notices: [ids.notice], users: [ids.member] });
+  beforeAll(async () => {
+    before = await dbState(watched());
+  });
+
+  const table = rows.flatMap((row) => ATTEMPTS.map((a) => ({ row, a })));
+  it.each(table.map((t) => [`${t.row.method} ${t.row.name} ${t.a.label} -> ${t.a.status}`, t] as const))('%s', async (_label, { row, a }) => {
+    // Raw fetch: the test client would add the app's Origin.
+    const body = 'body' in row && row.body ? JSON.stringify(row.body('admin')) : '{}';
+    const res = await fetch(`${BASE_URL}${row.path(ids)}`, {
+      method: row.method,
+      redirect: 'manual',
+      headers: { 'content-type': 'application/json', cookie: sessions.admin!.cookie, ...a.headers },
+      body,
+    });
+    expect(res.status).toBe(a.status);
+    const j = await res.json();
+    expect(j.error).toMatch(/refused/);
+  });
+
+  it.each(rows.map((row) => [`${row.method} ${row.name} sent as text/plain from the app -> 415`, row] as const))('%s', async (_label, row) => {
+    const body = 'body' in row && row.body ? JSON.stringify(row.body('admin')) : '{}';
+    const isAuth = row.path(ids).startsWith('/api/auth/');
+    const r = await api(row.path(ids), { method: row.method, session: sessions.admin, body, headers: { 'content-type': 'text/plain;charset=UTF-8' } });
+    expect(r.status, r.text.slice(0, 200)).toBe(415);
+    expect(r.json.error).toMatch(isAuth ? /form/ : /JSON/);
+  });
+
+  it('accepts a same-site Referer when a client sends no Origin (passes the check, then validation answers)', async () => {
+    const res = await fetch(`${BASE_URL}/api/cases/${ids.openCase}/comments`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', cookie: sessions.admin!.cookie, referer: `${APP_ORIGIN}/cases/${ids.openCase}` },
+      body: JSON.stringify({ text: '' }),
+    });
+    expect(res.status).toBe(400);
+  });
+
+  it('wrote nothing', async () => {
+    expect(await dbState(watched())).toEqual(before);
   });
 });
 

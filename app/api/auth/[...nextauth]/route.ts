@@ -3,7 +3,8 @@ import type { NextRequest } from 'next/server';
 import { authOptions } from '@/lib/auth/options';
 import { clientOf, signInBlocked } from '@/lib/auth/throttle';
 import { route, type RouteContext } from '@/lib/api/handler';
-import { tooManyRequests } from '@/lib/errors';
+import { badRequest, tooManyRequests } from '@/lib/errors';
+import { textProblem } from '@/lib/validation/text';
 
 const nextAuth = NextAuth(authOptions);
 
@@ -18,6 +19,8 @@ export const POST = route<{ nextauth: string[] }>({ body: 'form' }, async (req: 
   if (nextauth?.[0] === 'callback' && nextauth[1] === 'credentials') {
     const form = await req.clone().formData().catch(() => undefined);
     const email = String(form?.get('email') ?? '');
+    const problem = textProblem(email);
+    if (problem) throw badRequest(problem);
     const { blocked, retryAfterS } = await signInBlocked(email, clientOf(req.headers));
     if (blocked) {
       throw tooManyRequests(

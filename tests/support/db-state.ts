@@ -1,0 +1,27 @@
+/** What a rejected request must leave alone: row counts per table and digests of chosen rows. */
+import { db } from '@/db';
+
+/** Tables requests write to (the outbox and sign-in failures change on their own: left out). */
+const TABLES = ['users', 'club_settings', 'cases', 'case_events', 'user_tokens', 'bearings', 'bearing_revisions', 'fix_snapshots', 'notice_templates', 'notices', 'notice_answers'];
+
+export async function rowCounts(): Promise<Record<string, number>> {
+  const { rows } = await db.raw(TABLES.map((t) => `select '${t}' as t, count(*)::int as n from ${t}`).join(' union all '));
+  return Object.fromEntries(rows.map((r: { t: string; n: number }) => [r.t, r.n]));
+}
+
+/** md5 of whole rows, e.g. { cases: [id], bearings: [id] }: any update shows as a different digest. */
+export async function rowDigests(rows: Record<string, string[]>): Promise<Record<string, string>> {
+  const out: Record<string, string> = {};
+  for (const [table, ids] of Object.entries(rows)) {
+    for (const id of ids) {
+      const r = await db(table).where({ id }).first(db.raw(`md5(to_jsonb(${table})::text) as d`));
+      out[`${table}:${id}`] = r?.d ?? 'missing';
+    }
+  }
+  return out;
+}
+
+/** Counts and digests together, for a before/after comparison. */
+export async function dbState(rows: Record<string, string[]> = {}) {
+  return { counts: await rowCounts(), rows: await rowDigests(rows) };
+}
