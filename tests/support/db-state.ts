@@ -9,13 +9,17 @@ export async function rowCounts(): Promise<Record<string, number>> {
   return Object.fromEntries(rows.map((r: { t: string; n: number }) => [r.t, r.n]));
 }
 
-/** md5 of whole rows, e.g. { cases: [id], bearings: [id] }: any update shows as a different digest. */
+/**
+ * md5 of whole rows, e.g. { cases: [id], 'notice_templates.key': ['first-notice'] } (the key
+ * column is `id` unless named): any update shows as a different digest.
+ */
 export async function rowDigests(rows: Record<string, string[]>): Promise<Record<string, string>> {
   const out: Record<string, string> = {};
-  for (const [table, ids] of Object.entries(rows)) {
+  for (const [spec, ids] of Object.entries(rows)) {
+    const [table, column = 'id'] = spec.split('.');
     for (const id of ids) {
-      const r = await db(table).where({ id }).first(db.raw(`md5(to_jsonb(${table})::text) as d`));
-      out[`${table}:${id}`] = r?.d ?? 'missing';
+      const r = await db(table).where(column, id).first(db.raw(`md5(to_jsonb(${table})::text) as d`));
+      out[`${spec}:${id}`] = r?.d ?? 'missing';
     }
   }
   return out;
