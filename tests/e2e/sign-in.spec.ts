@@ -42,3 +42,41 @@ test.describe('signing in through the form', () => {
     await expect(page.getByText('Hunt from public ground only')).toBeVisible();
   });
 });
+
+test.describe('the page after sign-in', () => {
+  // Targets another origin on this machine (port 9, nothing listens): if a form followed it, the
+  // browser would leave the site; the test sends no traffic off the machine either way.
+  const HOSTILE_NEXT = [
+    `next=${encodeURIComponent('/\\127.0.0.1:9/stolen')}`,
+    'next=/%09/127.0.0.1:9/stolen',
+    `next=${encodeURIComponent('//127.0.0.1:9/stolen')}`,
+    `next=${encodeURIComponent('http://127.0.0.1:9/stolen')}`,
+    'next=/\\/127.0.0.1:9/stolen',
+  ];
+  for (const query of HOSTILE_NEXT) {
+    test(`stays on the site for ?${query}`, async ({ page, baseURL }, info) => {
+      test.skip(info.project.name !== 'desktop', 'the redirect rule does not depend on the screen');
+      await page.goto(`/sign-in?${query}`);
+      await page.getByLabel('E-mail').fill('member@example.test');
+      await page.getByLabel('Password').fill('quietfix-demo');
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await expect(page).toHaveURL(/\/cases$/);
+      expect(new URL(page.url()).origin).toBe(new URL(baseURL!).origin);
+      expect(new URL(page.url()).pathname).toBe('/cases');
+    });
+  }
+
+  test('follows a path on the site, and the case page with its map runs under the CSP', async ({ page }) => {
+    const refused: string[] = [];
+    page.on('console', (m) => /Content Security Policy|Refused to/i.test(m.text()) && refused.push(m.text()));
+    await page.goto(`/sign-in?next=${encodeURIComponent('/cases?q=Rasping')}`);
+    await page.getByLabel('E-mail').fill('coordinator@example.test');
+    await page.getByLabel('Password').fill('quietfix-demo');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect(page).toHaveURL(/\/cases\?q=Rasping$/);
+    await page.getByRole('list', { name: 'Cases' }).getByRole('link').first().click();
+    await expect(page.getByTestId('case-map').locator('.leaflet-pane').first()).toBeAttached();
+    await expect(page.getByTestId('case-map').locator('.qf-bearing').first()).toBeVisible();
+    expect(refused).toEqual([]);
+  });
+});
