@@ -1,6 +1,8 @@
 import { NextResponse, type NextRequest } from 'next/server';
 import { getToken } from 'next-auth/jwt';
-import { appIsHttps, env } from '@/lib/env';
+import { allowedOrigins, appIsHttps, env } from '@/lib/env';
+import { assertSameOrigin } from '@/lib/api/request-guard';
+import { AppError } from '@/lib/errors';
 import { pathDecodes, securityHeaders } from '@/lib/api/security-headers';
 import { sameOriginPath } from '@/lib/api/same-origin-path';
 
@@ -40,6 +42,8 @@ function withHeaders<R extends NextResponse>(res: R, own: Record<string, string>
  * Runs before every page and route handler:
  * - a path whose percent-encoding does not decode is a 400 JSON (API) or the not-found page,
  *   never Next's plain-text 500;
+ * - a state-changing request to a page (a server action) passes the same Origin rule as route()
+ *   (Next's own check lets a request without Origin through);
  * - security headers (CSP with a fresh nonce, nosniff, referrer policy, HSTS on https) on every answer;
  * - signed-out visits to signed-in pages are redirected. Every page, route handler and server
  *   action still checks the session itself.
@@ -53,6 +57,13 @@ export async function proxy(req: NextRequest) {
       return withHeaders(NextResponse.json({ error: 'The address contains broken percent-encoding.' }, { status: 400, headers: { 'cache-control': 'no-store' } }), own);
     }
     return withHeaders(NextResponse.rewrite(new URL('/not-found-page', req.url)), own);
+  }
+  if (!pathname.startsWith('/api/')) {
+    try {
+      assertSameOrigin(req, allowedOrigins);
+    } catch (err) {
+      return withHeaders(NextResponse.json({ error: (err as AppError).message }, { status: 403 }), own);
+    }
   }
   const path = pathname + req.nextUrl.search;
   if (needsSession(pathname)) {
