@@ -98,6 +98,14 @@ describe('cross-site and non-JSON state changes are refused (403 / 415)', () => 
     expect(res.status).toBe(400);
   });
 
+  it('refuses a page POST (a server action) from another site or without an Origin, before Next runs it', async () => {
+    for (const headers of [{ origin: 'https://elsewhere.example.test' }, {}] as Record<string, string>[]) {
+      const res = await fetch(`${BASE_URL}/cases`, { method: 'POST', redirect: 'manual', headers: { 'next-action': 'made-up', cookie: sessions.admin!.cookie, ...headers } });
+      expect(res.status).toBe(403);
+      expect((await res.json()).error).toMatch(/refused/);
+    }
+  });
+
   it('wrote nothing', async () => {
     expect(await dbState(watched())).toEqual(before);
   });

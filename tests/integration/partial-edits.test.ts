@@ -5,6 +5,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { db } from '@/db';
 import { api, signIn, type Session } from '../support/http';
+import { noiseReport } from '../support/fixtures';
 
 let chair: Session, coordinator: Session, member: Session;
 let memberId: string, hunterId: string;
@@ -28,14 +29,7 @@ describe('PATCH changes only what it names', () => {
   beforeAll(async () => {
     const r = await api('/api/cases', {
       session: member,
-      body: {
-        title: 'Whine on 20 m',
-        sound: 'whine',
-        description: 'Rises and falls every few seconds.',
-        frequencies: [{ value: 14.1, unit: 'MHz' }],
-        schedule: { days: ['sat'], pattern: 'intermittent', note: '' },
-        position: { lat: -31.52, lon: 129.41, source: 'map' },
-      },
+      body: noiseReport({ title: 'Whine on 20 m', sound: 'whine', description: 'Rises and falls every few seconds.', position: { lat: -31.52, lon: 129.41, source: 'map' } }),
     });
     expect(r.status, r.text).toBe(201);
     caseId = r.json.case.id;
