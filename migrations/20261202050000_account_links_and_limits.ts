@@ -29,10 +29,14 @@ export async function up(knex: Knex): Promise<void> {
   await knex.raw('ALTER TABLE outbox DROP CONSTRAINT outbox_kind_check');
   await knex.raw("ALTER TABLE outbox ADD CONSTRAINT outbox_kind_check CHECK (kind in ('notice','alert','account'))");
   await knex.raw("ALTER TABLE outbox ADD CONSTRAINT outbox_account_has_token CHECK (kind <> 'account' or user_token_id is not null)");
+  await knex.raw('ALTER TABLE outbox DROP CONSTRAINT outbox_notice_has_id');
+  await knex.raw("ALTER TABLE outbox ADD CONSTRAINT outbox_notice_has_id CHECK (kind <> 'notice' or notice_id is not null)");
 }
 
 export async function down(knex: Knex): Promise<void> {
   await knex('outbox').where({ kind: 'account' }).delete();
+  await knex.raw('ALTER TABLE outbox DROP CONSTRAINT outbox_notice_has_id');
+  await knex.raw("ALTER TABLE outbox ADD CONSTRAINT outbox_notice_has_id CHECK (kind = 'alert' or notice_id is not null)");
   await knex.raw('ALTER TABLE outbox DROP CONSTRAINT outbox_account_has_token');
   await knex.raw('ALTER TABLE outbox DROP CONSTRAINT outbox_kind_check');
   await knex.raw("ALTER TABLE outbox ADD CONSTRAINT outbox_kind_check CHECK (kind in ('notice','alert'))");

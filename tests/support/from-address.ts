@@ -43,12 +43,14 @@ export function fromAddress(localAddress: string, path: string, opts: { method?:
 export async function signInFrom(localAddress: string, email: string, password: string, headers: Record<string, string> = {}) {
   const csrf = await fromAddress(localAddress, '/api/auth/csrf', { headers });
   const jar = csrf.cookies.join('; ');
+  const t0 = performance.now();
   const res = await fromAddress(localAddress, '/api/auth/callback/credentials', {
     headers: { 'content-type': 'application/x-www-form-urlencoded', cookie: jar, ...headers },
     body: new URLSearchParams({ csrfToken: csrf.json.csrfToken, email, password, json: 'true' }).toString(),
   });
+  const ms = performance.now() - t0;
   const session = res.cookies.find((c) => c.startsWith('next-auth.session-token='));
-  return { status: res.status, json: res.json, retryAfter: res.headers['retry-after'], cookie: session ? `${jar}; ${session}` : undefined };
+  return { status: res.status, json: res.json, ms, retryAfter: res.headers['retry-after'], cookie: session ? `${jar}; ${session}` : undefined };
 }
 
 /** A JSON POST from `localAddress`. */
