@@ -8,7 +8,6 @@
  * are ratios of medians, never absolute times.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createServer } from 'node:net';
 import nodemailer from 'nodemailer';
 import { db, inTransaction } from '@/db';
 import { createUser } from '@/db/users';
@@ -19,6 +18,7 @@ import { THROTTLE } from '@/lib/auth/throttle';
 import { runWorkerOnce } from '@/lib/notices/outbox';
 import { api, mailTo, uniqueEmail, waitFor, type Session } from '../support/http';
 import { PROXY_ADDRESS, freshAddress, postJsonFrom, signInFrom } from '../support/from-address';
+import { closedPort } from '../support/net';
 
 afterAll(() => db.destroy());
 
@@ -49,15 +49,6 @@ const works = async (s: Session) => (await api('/api/cases', { session: s })).st
 const forgot = (email: string, from = freshAddress()) => postJsonFrom(from, '/api/password/forgot', { email });
 const setPassword = (token: string, password: string) => api('/api/password', { body: { token, password, confirm: password } });
 const resetMails = async (email: string) => (await mailTo(email)).filter((m: { subject: string }) => m.subject.includes('new password'));
-
-/** A port nothing listens on: bound, then released. */
-async function closedPort(): Promise<number> {
-  const s = createServer();
-  await new Promise<void>((r) => s.listen(0, '127.0.0.1', () => r()));
-  const port = (s.address() as { port: number }).port;
-  await new Promise((r) => s.close(r));
-  return port;
-}
 
 describe('reset links and sessions retire', () => {
   it('a new reset request retires the older link; a reset ends every open session and burns the link', async () => {

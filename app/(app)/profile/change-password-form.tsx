@@ -7,6 +7,7 @@ import { changePasswordSchema, type ChangePasswordInput } from '@/lib/validation
 import { callApi } from '@/lib/api/client';
 import { applyServerIssues } from '@/lib/api/apply-server-issues';
 import { TextField } from '@/components/ui/text-field';
+import { NewPasswordFields } from '@/components/ui/new-password-fields';
 import { NoticeBox } from '@/components/ui/notice-box';
 
 const FIELDS = ['current', 'password', 'confirm'];
@@ -35,16 +36,7 @@ export function ChangePasswordForm() {
       <p className="text-ink-soft">Every device signed in to your account is signed out, this one too; then sign in with the new password.</p>
       {problem && <NoticeBox tone="error">{problem}</NoticeBox>}
       <TextField id="current" label="Current password" type="password" autoComplete="current-password" error={formState.errors.current} registration={register('current')} />
-      <TextField
-        id="new-password"
-        label="New password"
-        type="password"
-        autoComplete="new-password"
-        hint="At least 10 characters."
-        error={formState.errors.password}
-        registration={register('password')}
-      />
-      <TextField id="confirm" label="The new one again" type="password" autoComplete="new-password" error={formState.errors.confirm} registration={register('confirm')} />
+      <NewPasswordFields password={register('password')} confirm={register('confirm')} errors={formState.errors} />
       <button type="submit" className="btn-primary" disabled={formState.isSubmitting}>
         Change password
       </button>
