@@ -1,7 +1,7 @@
 import NextAuth from 'next-auth';
 import type { NextRequest } from 'next/server';
 import { authOptions } from '@/lib/auth/options';
-import { clientOf, signInBlocked } from '@/lib/auth/throttle';
+import { clientOf, countSignInAttempt } from '@/lib/auth/throttle';
 import { route, type RouteContext } from '@/lib/api/handler';
 import { tooManyRequests } from '@/lib/errors';
 
@@ -9,16 +9,20 @@ const nextAuth = NextAuth(authOptions);
 
 export const GET = nextAuth;
 
-/** Credential sign-ins pass the throttle first: too many failures -> 429 with a plain message. */
+/**
+ * Every credential sign-in is counted before the password is looked at (one atomic upsert per
+ * key, lib/auth/throttle.ts): over the limit -> 429 with a plain message and no bcrypt at all,
+ * so a parallel burst is evaluated at most up to the limit.
+ */
 export const POST = route<{ nextauth: string[] }>(async (req: NextRequest, ctx: RouteContext<{ nextauth: string[] }>) => {
   const { nextauth } = await ctx.params;
   if (nextauth?.[0] === 'callback' && nextauth[1] === 'credentials') {
     const form = await req.clone().formData().catch(() => undefined);
     const email = String(form?.get('email') ?? '');
-    const { blocked, retryAfterS } = await signInBlocked(email, clientOf(req.headers));
+    const { blocked, retryAfterS } = await countSignInAttempt(email, clientOf(req.headers));
     if (blocked) {
       throw tooManyRequests(
-        `Too many failed sign-ins. Wait ${Math.round(retryAfterS / 60)} minutes, or use "Forgot password" to set a new one.`,
+        `Too many sign-in attempts. Wait ${Math.ceil(retryAfterS / 60)} minutes, or use "Forgot password" to set a new one.`,
         retryAfterS,
       );
     }
