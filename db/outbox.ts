@@ -6,9 +6,11 @@ import type { Knex } from 'knex';
  */
 export type OutboxRow = {
   id: string;
-  kind: 'notice' | 'alert';
+  kind: 'notice' | 'alert' | 'account';
   noticeId: string | null;
   caseId: string | null;
+  /** account mail: the invitation or reset link it carries (db/user-tokens.ts) */
+  userTokenId: string | null;
   idempotencyKey: string;
   messageId: string;
   toAddress: string;
@@ -30,6 +32,7 @@ const COLUMNS = {
   kind: 'kind',
   noticeId: 'notice_id',
   caseId: 'case_id',
+  userTokenId: 'user_token_id',
   idempotencyKey: 'idempotency_key',
   messageId: 'message_id',
   toAddress: 'to_address',
@@ -55,13 +58,14 @@ const fromDb = (r: Record<string, unknown>): OutboxRow => {
 
 export async function insertOutbox(
   trx: Knex,
-  r: Pick<OutboxRow, 'kind' | 'noticeId' | 'caseId' | 'idempotencyKey' | 'messageId' | 'toAddress'> & Partial<Pick<OutboxRow, 'subject' | 'textBody' | 'htmlBody'>>,
+  r: Pick<OutboxRow, 'kind' | 'noticeId' | 'caseId' | 'idempotencyKey' | 'messageId' | 'toAddress'> & Partial<Pick<OutboxRow, 'subject' | 'textBody' | 'htmlBody' | 'userTokenId'>>,
 ): Promise<OutboxRow> {
   const [row] = await trx('outbox')
     .insert({
       kind: r.kind,
       notice_id: r.noticeId,
       case_id: r.caseId,
+      user_token_id: r.userTokenId ?? null,
       idempotency_key: r.idempotencyKey,
       message_id: r.messageId,
       to_address: r.toAddress,
@@ -95,9 +99,13 @@ export async function getOutboxByIdempotencyKey(q: Knex, key: string): Promise<O
  * statement commits. An expired lease (a worker died) makes the row claimable again.
  * The attempt is counted at claim time, so a worker that keeps crashing still runs out of tries.
  */
-export async function claimDue(q: Knex, p: { workerId: string; limit: number; leaseMs: number; onlyCaseIds?: string[] }): Promise<OutboxRow[]> {
-  const scope = p.onlyCaseIds ? 'and case_id = any(?::uuid[])' : '';
-  const bindings: Knex.RawBinding[] = p.onlyCaseIds ? [p.onlyCaseIds, p.limit, p.leaseMs, p.workerId] : [p.limit, p.leaseMs, p.workerId];
+export async function claimDue(q: Knex, p: { workerId: string; limit: number; leaseMs: number; onlyCaseIds?: string[]; onlyIds?: string[] }): Promise<OutboxRow[]> {
+  const scopes: string[] = [];
+  const scopeBindings: Knex.RawBinding[] = [];
+  if (p.onlyCaseIds) scopes.push('and case_id = any(?::uuid[])'), scopeBindings.push(p.onlyCaseIds);
+  if (p.onlyIds) scopes.push('and id = any(?::bigint[])'), scopeBindings.push(p.onlyIds);
+  const scope = scopes.join(' ');
+  const bindings: Knex.RawBinding[] = [...scopeBindings, p.limit, p.leaseMs, p.workerId];
   const { rows } = await q.raw(
     `with due as (
        select id from outbox
@@ -120,7 +128,7 @@ export async function claimDue(q: Knex, p: { workerId: string; limit: number; le
 /** The very next statement after the SMTP server accepted: nothing else runs in between. */
 export async function markSent(q: Knex, id: string, workerId: string): Promise<void> {
   await q.raw(
-    `update outbox set status = 'sent', sent_at = now(), lease_until = null, last_error = null, effects_applied = (kind = 'alert')
+    `update outbox set status = 'sent', sent_at = now(), lease_until = null, last_error = null, effects_applied = (kind <> 'notice')
       where id = ? and leased_by = ? and status = 'pending'`,
     [id, workerId],
   );

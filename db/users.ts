@@ -23,9 +23,19 @@ export async function getUserByEmail(email: string, q: Knex = db): Promise<User 
   return q('users').select(COLUMNS).whereRaw('lower(email) = lower(?)', [email]).first();
 }
 
-/** Only for sign-in: the hash never leaves db/ otherwise. */
-export async function getCredentials(email: string): Promise<(User & { passwordHash: string | null }) | undefined> {
-  return db('users').select({ ...COLUMNS, passwordHash: 'password_hash' }).whereRaw('lower(email) = lower(?)', [email]).first();
+/** A user with the session version their sessions must carry (lib/auth/session.ts). */
+export type SessionUser = User & { sessionVersion: number };
+
+export async function getSessionUser(id: string, q: Knex = db): Promise<SessionUser | undefined> {
+  return q('users').select({ ...COLUMNS, sessionVersion: 'session_version' }).where({ id }).first();
+}
+
+/** Only for sign-in and password changes: the hash never leaves db/ otherwise. */
+export async function getCredentials(email: string, q: Knex = db): Promise<(SessionUser & { passwordHash: string | null }) | undefined> {
+  return q('users')
+    .select({ ...COLUMNS, sessionVersion: 'session_version', passwordHash: 'password_hash' })
+    .whereRaw('lower(email) = lower(?)', [email])
+    .first();
 }
 
 export async function listUsers(paging: Paging): Promise<Page<User>> {
@@ -58,8 +68,14 @@ export async function updateUser(trx: Knex, id: string, patch: { role?: Role; ac
   return row;
 }
 
+/**
+ * Sets a new password and ends every existing session of the account: the session version
+ * goes up, and requireUser refuses a session that carries an older one.
+ */
 export async function setPassword(trx: Knex, id: string, passwordHash: string): Promise<void> {
-  await trx('users').where({ id }).update({ password_hash: passwordHash, updated_at: trx.fn.now() });
+  await trx('users')
+    .where({ id })
+    .update({ password_hash: passwordHash, session_version: trx.raw('session_version + 1'), updated_at: trx.fn.now() });
 }
 
 export async function countActiveAdmins(trx: Knex = db): Promise<number> {

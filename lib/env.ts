@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { parseTrustedProxy } from '@/lib/auth/client-address';
 
 /**
  * Every setting Quietfix reads from the environment, parsed once.
@@ -39,6 +40,20 @@ const schema = z.object({
   OUTBOX_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(100).default(8),
   OUTBOX_BATCH_SIZE: z.coerce.number().int().min(1).max(500).default(10),
   OUTBOX_POLL_MS: z.coerce.number().int().min(50).default(2000),
+  // Sign-in and reset limits key on the socket address; set this only behind a reverse proxy:
+  // 'any' (every peer is the proxy) or its addresses, comma-separated. Then the right-most
+  // X-Forwarded-For entry (the hop the proxy added) is the client. lib/auth/client-address.ts.
+  TRUSTED_PROXY: z
+    .string()
+    .optional()
+    .transform((v, ctx) => {
+      try {
+        return parseTrustedProxy(v);
+      } catch (err) {
+        ctx.addIssue({ code: 'custom', message: (err as Error).message });
+        return z.NEVER;
+      }
+    }),
 });
 
 export type Env = z.infer<typeof schema>;

@@ -45,7 +45,7 @@ if [ -n "$MAIL_CATCHER_URL" ]; then
 fi
 
 ensure_build
-app_pid=$(spawn "$DATA/app.log" env NODE_ENV=production node node_modules/next/dist/bin/next start -p "$PORT" -H "$HOSTNAME_BIND")
+app_pid=$(spawn "$DATA/app.log" env NODE_ENV=production node --import tsx scripts/serve.ts -p "$PORT" -H "$HOSTNAME_BIND")
 # Delivers queued notices and alerts (retries, reminders); see lib/notices/README.md.
 worker_pid=$(spawn "$DATA/outbox-worker.log" node --import tsx scripts/outbox-worker.ts)
 echo "$app_pid $catcher_pid $worker_pid" >"$DATA/start.pids"

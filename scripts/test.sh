@@ -42,7 +42,8 @@ npx vitest run --project unit || rc=1
 rm -f "$CATCHER_STORE"
 catcher_pid=$(spawn "$DATA/mail-catcher-test.log" node --import tsx scripts/mail-catcher.ts)
 ensure_build
-app_pid=$(spawn "$DATA/app-test.log" env NODE_ENV=production node node_modules/next/dist/bin/next start -p "$TEST_PORT" -H 127.0.0.1)
+# The app trusts 127.0.0.9 as a reverse proxy (tests act as that proxy to check the right-most rule).
+app_pid=$(spawn "$DATA/app-test.log" env NODE_ENV=production TRUSTED_PROXY=127.0.0.9 node --import tsx scripts/serve.ts -p "$TEST_PORT" -H 127.0.0.1)
 # The outbox worker, polling often so tests see mail quickly; short backoff and lease for outage tests.
 worker_pid=$(spawn "$DATA/outbox-worker-test.log" env OUTBOX_POLL_MS=300 OUTBOX_BACKOFF_BASE_MS=500 OUTBOX_LEASE_MS=5000 node --import tsx scripts/outbox-worker.ts)
 echo "$app_pid $catcher_pid $worker_pid" >"$DATA/test.pids"

@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import bcrypt from 'bcryptjs';
+import { hashPassword } from '@/lib/auth/password';
 import { appendEvent, insertCase } from '../cases';
 import { insertBearing } from '../bearings';
 import { recomputeFix } from '@/lib/hunt/fix';
@@ -55,7 +55,8 @@ async function seedBearings(
 }
 
 export async function seedDemo(trx: Knex.Transaction): Promise<void> {
-  const hash = await bcrypt.hash(DEMO_PASSWORD, 10);
+  // The same cost as every other password, so a demo account answers a wrong password as slowly as any.
+  const hash = await hashPassword(DEMO_PASSWORD);
   const ids: Record<string, string> = {};
   for (const u of DEMO_USERS) {
     const [row] = await trx('users')

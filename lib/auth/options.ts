@@ -1,11 +1,11 @@
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
-import bcrypt from 'bcryptjs';
 import { z } from 'zod';
 import { getCredentials } from '@/db/users';
 import { appIsHttps, env } from '@/lib/env';
 import { sameOriginPath } from '@/lib/api/same-origin-path';
-import { clearFailures, clientOf, recordFailure } from './throttle';
+import { verifyPassword } from './password';
+import { clientOf, failureDelayMs, signInHits, signInSucceeded } from './throttle';
 
 const credentialsSchema = z.object({ email: z.email().max(254), password: z.string().min(1).max(200) });
 
@@ -20,19 +20,22 @@ export const authOptions: NextAuthOptions = {
     CredentialsProvider({
       name: 'E-mail and password',
       credentials: { email: { label: 'E-mail', type: 'email' }, password: { label: 'Password', type: 'password' } },
+      // The attempt was already counted (and refused over the limit) by the POST handler in
+      // app/api/auth/[...nextauth]/route.ts. Known or not, one bcrypt comparison runs, so the
+      // answer takes as long for an address without an account as for a wrong password.
       async authorize(raw, req) {
         const parsed = credentialsSchema.safeParse(raw);
         if (!parsed.success) return null;
         const { email, password } = parsed.data;
+        const client = clientOf(req?.headers ?? {});
         const user = await getCredentials(email);
-        const ok = !!user?.passwordHash && user.active && (await bcrypt.compare(password, user.passwordHash));
+        const ok = await verifyPassword(password, user?.passwordHash, !!user?.active);
         if (!ok || !user) {
-          const delay = await recordFailure(email, clientOf(req?.headers ?? {}));
-          await sleep(delay);
+          await sleep(failureDelayMs(await signInHits(email, client)));
           return null;
         }
-        await clearFailures(email);
-        return { id: user.id, email: user.email, name: user.name, role: user.role };
+        await signInSucceeded(email, client);
+        return { id: user.id, email: user.email, name: user.name, role: user.role, sessionVersion: user.sessionVersion };
       },
     }),
   ],
@@ -46,12 +49,13 @@ export const authOptions: NextAuthOptions = {
       if (user) {
         token.uid = user.id;
         token.role = user.role;
+        token.sv = user.sessionVersion;
       }
       return token;
     },
     async session({ session, token }) {
       if (token.uid && token.role) {
-        session.user = { id: token.uid, role: token.role, name: token.name ?? '', email: token.email ?? '' };
+        session.user = { id: token.uid, role: token.role, name: token.name ?? '', email: token.email ?? '', sessionVersion: token.sv ?? 0 };
       }
       return session;
     },

@@ -2,19 +2,23 @@ import { getServerSession } from 'next-auth';
 import { redirect } from 'next/navigation';
 import { headers } from 'next/headers';
 import { authOptions } from './options';
-import { getUserById } from '@/db/users';
+import { getSessionUser } from '@/db/users';
 import type { Role, User } from '@/db/types';
 import { forbidden, unauthorized } from '@/lib/errors';
 
 /**
  * The signed-in user, read fresh from the database so a deactivated account or a changed
- * role takes effect at once; undefined when signed out.
+ * role takes effect at once; undefined when signed out. A session that began before the
+ * account's last password change or reset carries an older session version and counts as
+ * signed out (db/users.ts setPassword bumps the version).
  */
 export async function currentUser(): Promise<User | undefined> {
   const session = await getServerSession(authOptions);
   if (!session?.user?.id) return undefined;
-  const user = await getUserById(session.user.id);
-  return user?.active ? user : undefined;
+  const found = await getSessionUser(session.user.id);
+  if (!found?.active || found.sessionVersion !== session.user.sessionVersion) return undefined;
+  const { sessionVersion: _, ...user } = found;
+  return user;
 }
 
 /**

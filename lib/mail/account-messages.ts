@@ -1,5 +1,3 @@
-import { env } from '@/lib/env';
-
 const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 function message(opts: { greeting: string; lead: string; link: string; action: string; footer: string }) {
@@ -10,11 +8,13 @@ function message(opts: { greeting: string; lead: string; link: string; action: s
   return { text, html };
 }
 
-export function invitationMail(p: { name: string; clubName: string; inviterName: string; role: string; token: string }) {
-  const link = `${env.APP_URL}/set-password?token=${encodeURIComponent(p.token)}`;
+export type AccountMail = { subject: string; text: string; html: string };
+
+/** The invitation e-mail; `link` is the set-password link (or the outbox's stand-in for it). */
+export function invitationMail(p: { name: string; clubName: string; inviterName: string; role: string; link: string }): AccountMail {
+  const { link } = p;
   return {
     subject: `${p.clubName}: you are invited to Quietfix`,
-    link,
     ...message({
       greeting: `Hello ${p.name},`,
       lead: `${p.inviterName} has invited you to the ${p.clubName} interference committee's Quietfix workspace as ${p.role}.`,
@@ -25,11 +25,10 @@ export function invitationMail(p: { name: string; clubName: string; inviterName:
   };
 }
 
-export function passwordResetMail(p: { name: string; token: string }) {
-  const link = `${env.APP_URL}/set-password?token=${encodeURIComponent(p.token)}`;
+export function passwordResetMail(p: { name: string; link: string }): AccountMail {
+  const { link } = p;
   return {
     subject: 'Quietfix: choose a new password',
-    link,
     ...message({
       greeting: `Hello ${p.name},`,
       lead: 'Someone (hopefully you) asked to reset your Quietfix password.',

@@ -7,6 +7,7 @@ import { appendEvent, lockCase, writeCase } from '@/db/cases';
 import { getNotice, lockNotice, writeNotice } from '@/db/notices';
 import { claimDue, getOutboxRow, lockOutboxRow, markEffectsApplied, markFailed, markSent, sentWithoutEffects, type OutboxRow } from '@/db/outbox';
 import { mailer } from '@/lib/mail/send';
+import { composeAccountMail, RetiredLinkError } from '@/lib/auth/account-mail';
 import { noticeConfig } from './config';
 import { renderFrozen } from './values';
 import { prepareReminders } from './reminders';
@@ -31,6 +32,8 @@ export type WorkerOptions = {
   maxAttempts?: number;
   /** only rows of these cases (tests that need a worker of their own) */
   onlyCaseIds?: string[];
+  /** only these outbox rows (tests of account mail, which belongs to no case) */
+  onlyIds?: string[];
   /** skip preparing reminders in this run */
   skipReminders?: boolean;
 };
@@ -57,12 +60,13 @@ export const backoffMs = (attempts: number, baseMs: number, capMs: number) => Ma
 /** Claims due rows for this worker (lease + FOR UPDATE SKIP LOCKED). */
 export async function claimBatch(o: WorkerOptions & { workerId: string }): Promise<OutboxRow[]> {
   const s = settings(o);
-  return claimDue(s.q, { workerId: o.workerId, limit: s.batchSize, leaseMs: s.leaseMs, onlyCaseIds: o.onlyCaseIds });
+  return claimDue(s.q, { workerId: o.workerId, limit: s.batchSize, leaseMs: s.leaseMs, onlyCaseIds: o.onlyCaseIds, onlyIds: o.onlyIds });
 }
 
 async function composeMessage(q: Knex, row: OutboxRow) {
   const base = { to: row.toAddress, messageId: row.messageId, from: noticeConfig().MAIL_FROM };
   if (row.kind === 'alert') return { ...base, subject: row.subject ?? '', text: row.textBody ?? '', html: row.htmlBody ?? undefined };
+  if (row.kind === 'account') return { ...base, ...(await composeAccountMail(q, row)) };
   const n = await getNotice(row.noticeId!, q);
   if (!n?.frozen) throw new Error('the notice is missing or was never approved');
   const m = renderFrozen({ ...n, frozen: n.frozen });
@@ -103,6 +107,7 @@ export async function applySentEffects(q: Knex, outboxId: string): Promise<void>
 export async function deliverOne(row: OutboxRow, o: WorkerOptions & { workerId: string }): Promise<'sent' | 'pending' | 'failed' | 'lost-lease'> {
   const s = settings(o);
   let error: string;
+  let permanent = false;
   try {
     const message = await composeMessage(s.q, row);
     await s.transport.sendMail(message);
@@ -117,12 +122,14 @@ export async function deliverOne(row: OutboxRow, o: WorkerOptions & { workerId: 
     return 'sent';
   } catch (err) {
     error = (err as Error).message || String(err);
+    // An account e-mail whose link was replaced or used meanwhile: no retry would help.
+    permanent = err instanceof RetiredLinkError;
   }
   const result = await markFailed(s.q, row.id, {
     workerId: o.workerId,
     error,
     delayMs: backoffMs(row.attempts, s.backoffBaseMs, s.backoffCapMs),
-    maxAttempts: s.maxAttempts,
+    maxAttempts: permanent ? 0 : s.maxAttempts,
   });
   if (result === 'failed' && row.noticeId) {
     await s.q.transaction(async (trx) => {
@@ -152,6 +159,6 @@ export async function runWorkerOnce(o: WorkerOptions = {}): Promise<RunResult> {
     else if (r === 'pending') out.retrying++;
     else if (r === 'failed') out.failed++;
   }
-  if (!o.skipReminders && !o.onlyCaseIds) out.reminders = await prepareReminders(s.q);
+  if (!o.skipReminders && !o.onlyCaseIds && !o.onlyIds) out.reminders = await prepareReminders(s.q);
   return out;
 }

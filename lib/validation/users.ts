@@ -41,3 +41,8 @@ export type SetPasswordInput = z.input<typeof setPasswordSchema>;
 
 export const signInSchema = z.object({ email, password: safeText().min(1, 'Enter your password.') });
 export type SignInInput = z.input<typeof signInSchema>;
+
+export const changePasswordSchema = z
+  .object({ current: safeText().min(1, 'Enter your current password.').max(200), password: passwordSchema, confirm: safeText() })
+  .refine((v) => v.password === v.confirm, { message: 'The two passwords differ.', path: ['confirm'] });
+export type ChangePasswordInput = z.input<typeof changePasswordSchema>;

@@ -35,6 +35,7 @@ export const ACCESS: Row[] = [
     expect: { anon: 401, admin: 201, coordinator: 201, hunter: 403, member: 403 },
   },
   { name: 'caught mail', method: 'GET', path: () => '/api/mail/messages', expect: ADMIN_ONLY },
+  { name: 'change own password', method: 'POST', path: () => '/api/password/change', body: () => ({}), expect: ALL_SIGNED_IN_BAD_BODY },
   {
     name: 'compute a fix',
     method: 'POST',

@@ -51,6 +51,7 @@ const TARGETS: Target[] = [
   { name: 'record a letter delivered', method: 'POST', path: () => `/api/cases/${ids.located}/notices/${ids.notice}/delivered`, who: () => coordinator, body: () => ({ deliveredOn: '2026-11-30' }), text: ['deliveredOn'] },
   { name: 'save a template', method: 'PUT', path: () => '/api/templates/first-notice', who: () => chair, body: () => ({ version: versions.template, subject: 'About radio noise', body: 'Dear neighbour, a device near you may be causing radio noise.' }), text: ['subject', 'body'], other: ['version'] },
   { name: 'forgot password', method: 'POST', path: () => '/api/password/forgot', who: () => undefined, body: () => ({ email: 'member@example.test' }), text: ['email'] },
+  { name: 'change own password', method: 'POST', path: () => '/api/password/change', who: () => member, body: () => ({ current: 'quietfix-demo', password: 'a new long password', confirm: 'a new long password' }), text: ['current', 'password', 'confirm'] },
   { name: 'set a password', method: 'POST', path: () => '/api/password', who: () => undefined, body: () => ({ token: 'T'.repeat(43), password: 'a long password', confirm: 'a long password' }), text: ['token', 'password', 'confirm'] },
   { name: 'answer a notice', method: 'POST', path: () => `/api/r/${ids.token}/answers`, who: () => undefined, body: () => ({ kind: 'contact-me', message: 'Happy to help.', contact: 'house@example.test' }), text: ['kind', 'message', 'contact'] },
 ];

@@ -9,7 +9,6 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { spawn, type ChildProcess } from 'node:child_process';
-import { createServer } from 'node:net';
 import knex, { type Knex } from 'knex';
 import nodemailer from 'nodemailer';
 import { db, inTransaction } from '@/db';
@@ -20,18 +19,10 @@ import { runWorkerOnce } from '@/lib/notices/outbox';
 import { queueSend } from '@/lib/notices/service';
 import { deriveToken } from '@/lib/notices/token';
 import { api, CATCHER_URL, mailTo, signIn, uniqueEmail, waitFor, type Session } from '../support/http';
+import { closedPort } from '../support/net';
 
 let chair: Session, coordinator: Session, member: Session;
 const catcherTransport = () => nodemailer.createTransport({ host: env.SMTP_HOST, port: env.SMTP_PORT, ignoreTLS: true, secure: false });
-
-/** A port nothing listens on: bound, then released. */
-async function closedPort(): Promise<number> {
-  const s = createServer();
-  await new Promise<void>((r) => s.listen(0, '127.0.0.1', () => r()));
-  const port = (s.address() as { port: number }).port;
-  await new Promise((r) => s.close(r));
-  return port;
-}
 
 let filed = 0;
 /** A fresh located case: filed, premises confirmed in a comment, located by a coordinator. */

@@ -7,7 +7,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { setPasswordSchema, type SetPasswordInput } from '@/lib/validation/users';
 import { callApi } from '@/lib/api/client';
-import { TextField } from '@/components/ui/text-field';
+import { NewPasswordFields } from '@/components/ui/new-password-fields';
 import { NoticeBox } from '@/components/ui/notice-box';
 
 export function SetPasswordForm() {
@@ -38,16 +38,7 @@ export function SetPasswordForm() {
     <form onSubmit={handleSubmit(onSubmit)} className="card space-y-4" noValidate>
       {problem && <NoticeBox tone="error">{problem}</NoticeBox>}
       <input type="hidden" {...register('token')} />
-      <TextField
-        id="password"
-        label="New password"
-        type="password"
-        autoComplete="new-password"
-        hint="At least 10 characters. A short sentence is easy to remember."
-        error={formState.errors.password}
-        registration={register('password')}
-      />
-      <TextField id="confirm" label="The same again" type="password" autoComplete="new-password" error={formState.errors.confirm} registration={register('confirm')} />
+      <NewPasswordFields password={register('password')} confirm={register('confirm')} errors={formState.errors} />
       <button type="submit" className="btn-primary w-full" disabled={formState.isSubmitting}>
         Save password
       </button>

@@ -4,14 +4,12 @@ import { inTransaction } from '@/db';
 import { getClubSettings } from '@/db/settings';
 import { createInvitation } from '@/lib/auth/tokens';
 import { inviteSchema } from '@/lib/validation/users';
-import { invitationMail } from '@/lib/mail/account-messages';
-import { sendMail } from '@/lib/mail/send';
-import { forbidden, AppError } from '@/lib/errors';
+import { forbidden } from '@/lib/errors';
 
 /**
- * Admins invite anyone; coordinators invite hunters and members. The invitation is
- * stored first, then mailed; if the mail server refuses, nothing is kept and the
- * coordinator is told to try again.
+ * Admins invite anyone; coordinators invite hunters and members. The invitation and its e-mail
+ * (an outbox row) are stored in one transaction; the outbox worker delivers it, with retries
+ * while the mail server is away (lib/auth/account-mail.ts).
  */
 export const POST = route(async (req) => {
   const me = await requireUser('admin', 'coordinator');
@@ -20,15 +18,6 @@ export const POST = route(async (req) => {
     throw forbidden('Coordinators can invite hunters and members; ask an admin for other roles.');
   }
   const club = await getClubSettings();
-  await inTransaction(async (trx) => {
-    const token = await createInvitation(trx, { ...input, createdBy: me.id });
-    const mail = invitationMail({ name: input.name, clubName: club.clubName, inviterName: me.name, role: input.role, token });
-    try {
-      await sendMail({ to: input.email, subject: mail.subject, text: mail.text, html: mail.html });
-    } catch (err) {
-      console.error('[quietfix] invitation mail failed:', (err as Error).message);
-      throw new AppError(502, 'The mail server did not accept the invitation; nothing was saved. Try again in a moment.');
-    }
-  });
+  await inTransaction((trx) => createInvitation(trx, { ...input, createdBy: me.id, inviterName: me.name, clubName: club.clubName }));
   return json({ ok: true, email: input.email }, 201);
 });

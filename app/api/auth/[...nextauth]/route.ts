@@ -1,7 +1,7 @@
 import NextAuth from 'next-auth';
 import type { NextRequest } from 'next/server';
 import { authOptions } from '@/lib/auth/options';
-import { clientOf, signInBlocked } from '@/lib/auth/throttle';
+import { clientOf, countSignInAttempt } from '@/lib/auth/throttle';
 import { route, type RouteContext } from '@/lib/api/handler';
 import { badRequest, tooManyRequests } from '@/lib/errors';
 import { textProblem } from '@/lib/validation/text';
@@ -11,7 +11,9 @@ const nextAuth = NextAuth(authOptions);
 export const GET = nextAuth;
 
 /**
- * Credential sign-ins pass the throttle first: too many failures -> 429 with a plain message.
+ * Every credential sign-in is counted before the password is looked at (one atomic upsert per
+ * key, lib/auth/throttle.ts): over the limit -> 429 with a plain message and no bcrypt at all,
+ * so a parallel burst is evaluated at most up to the limit.
  * next-auth's POSTs are forms (its own CSRF token stays); route() still checks their Origin.
  */
 export const POST = route<{ nextauth: string[] }>({ body: 'form' }, async (req: NextRequest, ctx: RouteContext<{ nextauth: string[] }>) => {
@@ -21,10 +23,10 @@ export const POST = route<{ nextauth: string[] }>({ body: 'form' }, async (req: 
     const email = String(form?.get('email') ?? '');
     const problem = textProblem(email);
     if (problem) throw badRequest(problem);
-    const { blocked, retryAfterS } = await signInBlocked(email, clientOf(req.headers));
+    const { blocked, retryAfterS } = await countSignInAttempt(email, clientOf(req.headers));
     if (blocked) {
       throw tooManyRequests(
-        `Too many failed sign-ins. Wait ${Math.round(retryAfterS / 60)} minutes, or use "Forgot password" to set a new one.`,
+        `Too many sign-in attempts. Wait ${Math.ceil(retryAfterS / 60)} minutes, or use "Forgot password" to set a new one.`,
         retryAfterS,
       );
     }

@@ -1,0 +1,10 @@
+import { createServer } from 'node:net';
+
+/** A port nothing listens on: bound, then released (an SMTP server that is down). */
+export async function closedPort(): Promise<number> {
+  const s = createServer();
+  await new Promise<void>((r) => s.listen(0, '127.0.0.1', () => r()));
+  const port = (s.address() as { port: number }).port;
+  await new Promise((r) => s.close(r));
+  return port;
+}
