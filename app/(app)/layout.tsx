@@ -3,6 +3,8 @@ import { requirePageUser } from '@/lib/auth/session';
 import { QuietfixMark } from '@/components/brand/quietfix-mark';
 import { SignOutButton } from '@/components/sign-out-button';
 import type { Role } from '@/db/types';
+import { env } from '@/lib/env';
+import { MapSettingsProvider } from '@/components/map/map-settings';
 
 const NAV: { href: string; label: string; roles: Role[] }[] = [
   { href: '/cases', label: 'Cases', roles: ['admin', 'coordinator', 'hunter', 'member'] },
@@ -39,7 +41,10 @@ export default async function SignedInLayout({ children }: { children: React.Rea
           </div>
         </div>
       </header>
-      <main className="mx-auto w-full max-w-6xl flex-1 px-3 py-4 sm:px-4">{children}</main>
+      <main className="mx-auto w-full max-w-6xl flex-1 px-3 py-4 sm:px-4">
+        {/* Tiles are configured at run time: the server reads them and hands them to the maps. */}
+        <MapSettingsProvider settings={{ tileUrl: env.TILE_URL, tileAttribution: env.TILE_ATTRIBUTION }}>{children}</MapSettingsProvider>
+      </main>
     </div>
   );
 }
