@@ -29,7 +29,11 @@ export function useDoors(caseId: string, fix: FixView | undefined, canConfirm: b
   const [focus, setFocus] = useState<MapFocus | null>(null);
 
   const candidateIds = useMemo(() => new Set((candidates.data?.items ?? []).filter((c) => c.insideRegion).map((c) => c.placeId)), [candidates.data]);
-  const show = (c: { lat: number; lon: number; placeId?: string | null }) => setFocus({ lat: c.lat, lon: c.lon, zoom: HOUSE_ZOOM, key: `${c.placeId ?? ''}${Date.now()}` });
+  const show = (c: { lat: number; lon: number; placeId?: string | null }) => {
+    setFocus({ lat: c.lat, lon: c.lon, zoom: HOUSE_ZOOM, key: `${c.placeId ?? ''}${Date.now()}` });
+    // On a phone the list is below the map: bring the map back into view.
+    document.querySelector('[data-testid="case-map"]')?.scrollIntoView({ block: 'center' });
+  };
   const pick = (c: Candidate) => {
     setTarget({ placeId: c.placeId, address: c.address ?? '', lat: c.lat, lon: c.lon });
     show(c);

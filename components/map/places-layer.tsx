@@ -92,7 +92,7 @@ export function PlacesLayer({ minZoom, highlight }: { minZoom: number; highlight
         .filter((f) => f.properties.kind === 'street')
         .map((f) =>
           lines(f.geometry).map((l, i) => (
-            <Polyline key={`${f.id}-${i}`} positions={l} pathOptions={{ ...LINE_STYLES.street, interactive: false, className: 'qf-street' }}>
+            <Polyline key={`${f.id}-${i}`} positions={l} className="qf-street" interactive={false} pathOptions={LINE_STYLES.street}>
               {zoom >= STREET_NAME_ZOOM && f.properties.name && i === 0 && (
                 <Tooltip permanent direction="center" className="qf-street-name">
                   {f.properties.name}
@@ -105,9 +105,12 @@ export function PlacesLayer({ minZoom, highlight }: { minZoom: number; highlight
         .filter((f) => f.properties.kind === 'building')
         .map((f) => (
           <Polygon
-            key={`${f.id}-${styleOf(f.id) === LINE_STYLES.building ? 'b' : 'h'}`}
+            key={`${f.id}-${styleOf(f.id) === LINE_STYLES.building ? 'b' : 'h'}-${highlight?.onPick ? 'p' : ''}`}
             positions={polygons(f.geometry)}
-            pathOptions={{ ...styleOf(f.id), interactive: !!highlight?.onPick, className: highlight?.candidateIds?.has(f.id) ? 'qf-building qf-candidate' : 'qf-building' }}
+            // Leaflet sets className and interactive only when a path is created: the key re-creates it when they change.
+            className={highlight?.candidateIds?.has(f.id) ? 'qf-building qf-candidate' : 'qf-building'}
+            interactive={!!highlight?.onPick}
+            pathOptions={styleOf(f.id)}
             eventHandlers={
               highlight?.onPick
                 ? {
