@@ -94,7 +94,7 @@ export function PlacesLayer({ minZoom, highlight }: { minZoom: number; highlight
           lines(f.geometry).map((l, i) => (
             <Polyline key={`${f.id}-${i}`} positions={l} className="qf-street" interactive={false} pathOptions={LINE_STYLES.street}>
               {zoom >= STREET_NAME_ZOOM && f.properties.name && i === 0 && (
-                <Tooltip permanent direction="center" className="qf-street-name">
+                <Tooltip permanent direction="center" className="qf-street-name" pane="tooltipPane">
                   {f.properties.name}
                 </Tooltip>
               )}
@@ -123,7 +123,7 @@ export function PlacesLayer({ minZoom, highlight }: { minZoom: number; highlight
             }
           >
             {zoom >= LABEL_ZOOM && f.properties.housenumber && (
-              <Tooltip permanent direction="center" className="qf-house-number">
+              <Tooltip permanent direction="center" className="qf-house-number" pane="tooltipPane">
                 {f.properties.housenumber}
               </Tooltip>
             )}
