@@ -1,4 +1,5 @@
 import { expect, test, type Browser, type Page } from '@playwright/test';
+import { signInPage } from '../support/sign-in-page';
 
 /**
  * From a fix to a door, on a 360-px phone: the demo's open case lists the houses of the demo town
@@ -8,11 +9,7 @@ import { expect, test, type Browser, type Page } from '@playwright/test';
 async function signedIn(browser: Browser, email: string): Promise<Page> {
   const context = await browser.newContext({ viewport: { width: 360, height: 740 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2 });
   const page = await context.newPage();
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('quietfix-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/cases/);
+  await signInPage(page, email);
   return page;
 }
 
