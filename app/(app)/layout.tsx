@@ -5,6 +5,7 @@ import { SignOutButton } from '@/components/sign-out-button';
 import type { Role } from '@/db/types';
 import { env } from '@/lib/env';
 import { MapSettingsProvider } from '@/components/map/map-settings';
+import { mayLoadPlaces } from '@/lib/places/places-roles';
 
 const NAV: { href: string; label: string; roles: Role[] }[] = [
   { href: '/cases', label: 'Cases', roles: ['admin', 'coordinator', 'hunter', 'member'] },
@@ -43,7 +44,7 @@ export default async function SignedInLayout({ children }: { children: React.Rea
       </header>
       <main className="mx-auto w-full max-w-6xl flex-1 px-3 py-4 sm:px-4">
         {/* Tiles are configured at run time: the server reads them and hands them to the maps. */}
-        <MapSettingsProvider settings={{ tileUrl: env.TILE_URL, tileAttribution: env.TILE_ATTRIBUTION }}>{children}</MapSettingsProvider>
+        <MapSettingsProvider settings={{ tileUrl: env.TILE_URL, tileAttribution: env.TILE_ATTRIBUTION, places: mayLoadPlaces(user.role) }}>{children}</MapSettingsProvider>
       </main>
     </div>
   );

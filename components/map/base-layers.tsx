@@ -18,7 +18,7 @@ const PLACES_ZOOM_WITHOUT_TILES = 15;
  * Render inside a MapContainer (the note is positioned over the map).
  */
 export function BaseLayers({ places }: { places?: PlacesHighlight }) {
-  const { tileUrl, tileAttribution } = useMapSettings();
+  const { tileUrl, tileAttribution, places: placesAllowed } = useMapSettings();
   const [count, setCount] = useState({ loaded: 0, errors: 0 });
   const failed = count.errors > 0 && (count.loaded === 0 || (count.errors >= ERRORS_BEFORE_GIVING_UP && count.errors > count.loaded));
   const tilesOn = tileUrl !== '' && !failed;
@@ -34,14 +34,15 @@ export function BaseLayers({ places }: { places?: PlacesHighlight }) {
       {/* Our own prefix: the library's name only, no flag or other symbol. */}
       <AttributionControl prefix="Leaflet" />
       {tilesOn ? <TileLayer url={tileUrl} attribution={tileAttribution} eventHandlers={handlers} /> : <CoordinateGrid />}
-      <PlacesLayer minZoom={tilesOn ? LABEL_ZOOM : PLACES_ZOOM_WITHOUT_TILES} highlight={places} />
+      {placesAllowed && <PlacesLayer minZoom={tilesOn ? LABEL_ZOOM : PLACES_ZOOM_WITHOUT_TILES} highlight={places} />}
       <ScaleControl position="bottomleft" metric imperial={false} />
       {!tilesOn && (
         <p
           data-testid="tiles-off"
           className="pointer-events-none absolute top-2 right-2 z-[1000] rounded-md border border-ink/20 bg-white/95 px-2 py-1 text-xs font-semibold text-ink"
         >
-          {tileUrl === '' ? 'No map tiles — streets and houses from the club’s places' : 'Map tiles did not load — streets and houses from the club’s places'}
+          {tileUrl === '' ? 'No map tiles' : 'Map tiles did not load'}
+          {placesAllowed ? ' — streets and houses from the club’s places' : ' — geometry only'}
         </p>
       )}
     </>

@@ -2,6 +2,7 @@ import { route, json } from '@/lib/api/handler';
 import { requireUser } from '@/lib/auth/session';
 import { placesInBox } from '@/db/places';
 import { PLACES_CAP, placesQuerySchema } from '@/lib/validation/places';
+import { PLACES_ROLES } from '@/lib/places/places-roles';
 
 /**
  * Streets and buildings in a box, as a GeoJSON FeatureCollection (streets first, at most
@@ -9,7 +10,7 @@ import { PLACES_CAP, placesQuerySchema } from '@/lib/validation/places';
  * signed-in hunters and the committee only.
  */
 export const GET = route(async (req) => {
-  await requireUser('admin', 'coordinator', 'hunter');
+  await requireUser(...PLACES_ROLES);
   const { bbox } = placesQuerySchema.parse(Object.fromEntries(req.nextUrl.searchParams));
   const { features, truncated } = await placesInBox(bbox, PLACES_CAP);
   return json({ type: 'FeatureCollection', features, truncated, cap: PLACES_CAP });
