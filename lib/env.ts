@@ -21,6 +21,10 @@ const schema = z.object({
   SMTP_PASS: z.string().optional(),
   MAIL_FROM: z.string().min(3).default('Quietfix <no-reply@quietfix.example.test>'),
   MAIL_CATCHER_URL: z.union([z.url(), z.literal('')]).default('http://127.0.0.1:8025'),
+  // The map's raster tiles, read at run time and handed to the page: an XYZ template with {z}/{x}/{y}
+  // (and optionally {s}) and the attribution its licence asks for. Empty: no tiles, the places layer only.
+  TILE_URL: z.union([z.literal(''), z.string().regex(/^https?:\/\/\S*\{z\}\S*\{x\}\S*\{y\}/, 'TILE_URL must be an http(s) XYZ template with {z}, {x} and {y}')]).default(''),
+  TILE_ATTRIBUTION: z.string().max(500).default(''),
   // Notices and the outbox worker (lib/notices; the worker process reads the same settings).
   NOTICE_TOKEN_SECRET: z.string().min(16).optional(),
   NOTICE_TOKEN_DAYS: z.coerce.number().int().min(1).max(3650).default(90),
@@ -30,10 +34,6 @@ const schema = z.object({
   OUTBOX_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(100).default(8),
   OUTBOX_BATCH_SIZE: z.coerce.number().int().min(1).max(500).default(10),
   OUTBOX_POLL_MS: z.coerce.number().int().min(50).default(2000),
-  // The map's raster tiles, read at run time and handed to the page: an XYZ template with {z}/{x}/{y}
-  // (and optionally {s}) and the attribution its licence asks for. Empty: no tiles, the places layer only.
-  TILE_URL: z.union([z.literal(''), z.string().regex(/^https?:\/\/\S*\{z\}\S*\{x\}\S*\{y\}/, 'TILE_URL must be an http(s) XYZ template with {z}, {x} and {y}')]).default(''),
-  TILE_ATTRIBUTION: z.string().max(500).default(''),
 });
 
 export type Env = z.infer<typeof schema>;
