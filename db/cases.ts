@@ -116,19 +116,15 @@ export async function findNearbyOpenCase(
   p: { lat: number; lon: number; bands: string[]; radiusM: number; excludeId?: string },
 ): Promise<{ id: string; reference: string; title: string } | undefined> {
   if (p.bands.length === 0) return undefined;
-  // Haversine on a 6371 km sphere: plenty for a 500 m neighbourhood test.
+  // Geodesic distance on the WGS84 ellipsoid (PostGIS geography), through the GiST index on reported_geog.
   return q('cases')
     .select('id', 'reference', 'title')
     .where('status', 'open')
     .whereNull('merged_into')
-    .whereNotNull('reported_lat')
+    .whereNotNull('reported_geog')
     .whereRaw('bands && ?::text[]', [p.bands])
     .modify((b) => (p.excludeId ? b.whereNot('id', p.excludeId) : b))
-    .whereRaw(
-      `2 * 6371000 * asin(sqrt(power(sin(radians(reported_lat - ?) / 2), 2) +
-        cos(radians(?)) * cos(radians(reported_lat)) * power(sin(radians(reported_lon - ?) / 2), 2))) <= ?`,
-      [p.lat, p.lat, p.lon, p.radiusM],
-    )
+    .whereRaw('ST_DWithin(reported_geog, geography(ST_SetSRID(ST_MakePoint(?, ?), 4326)), ?)', [p.lon, p.lat, p.radiusM])
     .orderBy('created_at', 'asc')
     .first();
 }

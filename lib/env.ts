@@ -14,9 +14,6 @@ const schema = z.object({
     .default('')
     .transform((s) => s.split(',').map((o) => o.trim()).filter(Boolean))
     .pipe(z.array(z.url('TRUSTED_ORIGINS must be a comma-separated list of origins such as https://club.example.test.'))),
-  /** Tile server URL template read at run time (the browser build may also carry NEXT_PUBLIC_TILE_URL); its origin joins the CSP. */
-  TILE_URL: z.string().default(''),
-  NEXT_PUBLIC_TILE_URL: z.string().default(''),
   DB_HOST: z.string().min(1).default('127.0.0.1'),
   DB_PORT: z.coerce.number().int().min(1).max(65535).default(54329),
   DB_USER: z.string().min(1).default('quietfix'),
@@ -31,6 +28,11 @@ const schema = z.object({
   SMTP_PASS: z.string().optional(),
   MAIL_FROM: z.string().min(3).default('Quietfix <no-reply@quietfix.example.test>'),
   MAIL_CATCHER_URL: z.union([z.url(), z.literal('')]).default('http://127.0.0.1:8025'),
+  // The map's raster tiles, read at run time and handed to the page: an XYZ template with {z}/{x}/{y}
+  // (and optionally {s}) and the attribution its licence asks for. Empty: no tiles, the places layer only.
+  // Its origin joins the Content-Security-Policy's img-src and connect-src (proxy.ts).
+  TILE_URL: z.union([z.literal(''), z.string().regex(/^https?:\/\/\S*\{z\}\S*\{x\}\S*\{y\}/, 'TILE_URL must be an http(s) XYZ template with {z}, {x} and {y}')]).default(''),
+  TILE_ATTRIBUTION: z.string().max(500).default(''),
   // Notices and the outbox worker (lib/notices; the worker process reads the same settings).
   NOTICE_TOKEN_SECRET: z.string().min(16).optional(),
   NOTICE_TOKEN_DAYS: z.coerce.number().int().min(1).max(3650).default(90),

@@ -40,6 +40,13 @@ pg_bin() {
   echo "$d"
 }
 
+# PostGIS for the server in $1 (its bin folder): Debian's postgresql-<version>-postgis-3, like the server itself.
+ensure_postgis() {
+  local v
+  v=$(basename "$(dirname "$1")")
+  [ -f "/usr/share/postgresql/$v/extension/postgis.control" ] || apt_install "postgresql-$v-postgis-3"
+}
+
 ensure_chromium() {
   if [ ! -x /usr/bin/chromium ]; then apt_install chromium; fi
 }

@@ -34,6 +34,7 @@ case "$cmd" in
   up)
     port=${3:?port}
     bin=$(pg_bin)
+    ensure_postgis "$bin"
     dir=$(data_dir "$name")
     if [ ! -s "$dir/PG_VERSION" ]; then
       say "creating the PostgreSQL cluster in $dir…"

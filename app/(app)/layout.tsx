@@ -3,6 +3,9 @@ import { requirePageUser } from '@/lib/auth/session';
 import { QuietfixMark } from '@/components/brand/quietfix-mark';
 import { SignOutButton } from '@/components/sign-out-button';
 import type { Role } from '@/db/types';
+import { env } from '@/lib/env';
+import { MapSettingsProvider } from '@/components/map/map-settings';
+import { mayLoadPlaces } from '@/lib/places/places-roles';
 
 const NAV: { href: string; label: string; roles: Role[] }[] = [
   { href: '/cases', label: 'Cases', roles: ['admin', 'coordinator', 'hunter', 'member'] },
@@ -39,7 +42,10 @@ export default async function SignedInLayout({ children }: { children: React.Rea
           </div>
         </div>
       </header>
-      <main className="mx-auto w-full max-w-6xl flex-1 px-3 py-4 sm:px-4">{children}</main>
+      <main className="mx-auto w-full max-w-6xl flex-1 px-3 py-4 sm:px-4">
+        {/* Tiles are configured at run time: the server reads them and hands them to the maps. */}
+        <MapSettingsProvider settings={{ tileUrl: env.TILE_URL, tileAttribution: env.TILE_ATTRIBUTION, places: mayLoadPlaces(user.role) }}>{children}</MapSettingsProvider>
+      </main>
     </div>
   );
 }

@@ -1,6 +1,6 @@
 import { LINE_STYLES, PALETTE, type LineKind } from './map-styles';
 
-export type LegendKey = 'bearing' | 'outlier' | 'excluded' | 'observer' | 'cross' | 'fix' | 'ellipse' | 'alternative' | 'trail' | 'spot' | 'reporter' | 'picked';
+export type LegendKey = 'bearing' | 'outlier' | 'excluded' | 'observer' | 'cross' | 'fix' | 'ellipse' | 'alternative' | 'trail' | 'spot' | 'reporter' | 'picked' | 'candidate' | 'premises';
 
 const TEXT: Record<LegendKey, string> = {
   bearing: 'bearing line',
@@ -15,6 +15,8 @@ const TEXT: Record<LegendKey, string> = {
   spot: 'next spot (expected ellipse)',
   reporter: 'reporter (private)',
   picked: 'chosen position',
+  candidate: 'house inside the region (listen closer, not an accusation)',
+  premises: 'premises picked or confirmed',
 };
 
 function LineSwatch({ kind }: { kind: LineKind }) {
@@ -51,6 +53,8 @@ const SWATCH: Record<LegendKey, React.ReactNode> = {
   spot: <DotSwatch fill="#fff" ring={PALETTE.hush900} />,
   reporter: <DotSwatch fill={PALETTE.inkFaint} ring="#fff" />,
   picked: <DotSwatch ring={PALETTE.flare700} />,
+  candidate: <LineSwatch kind="candidate" />,
+  premises: <LineSwatch kind="premises" />,
 };
 
 /** The map's legend in words, listing only what is drawn. */

@@ -9,6 +9,8 @@ import { BaseLayers } from './base-layers';
 import { BearingLayers, FixLayers, ReporterMarker, SpotMarkers, TrailLayer } from './case-map-layers';
 import { CaseMapLegend, type LegendKey } from './case-map-legend';
 import { FitBoundsOnce } from './fit-bounds-once';
+import { FlyTo, type MapFocus } from './fly-to';
+import type { PlacesHighlight } from './places-layer';
 import { MapTap, type LatLon } from './map-tap';
 import { PLAIN_BACKGROUND } from './map-styles';
 import { PickedPositionMarker } from './picked-position-marker';
@@ -22,6 +24,10 @@ export type CaseMapProps = {
   selectedPosition?: LatLon | null;
   onMapTap?: (p: LatLon) => void;
   onSpotSelect?: (s: NextSpot) => void;
+  /** Candidate houses, confirmed premises and picking a building on the places layer. */
+  places?: PlacesHighlight;
+  /** Move the map here (a new key moves it again). */
+  focus?: MapFocus | null;
   className?: string;
 };
 
@@ -32,7 +38,7 @@ const WORLD: { center: [number, number]; zoom: number } = { center: [20, 0], zoo
  * The hunt on a map: lines of bearing, crossings, the fix with its 95 % error ellipse, how the
  * fix converged and where to stand next. Browser only (load through CaseMapClient).
  */
-export default function CaseMap({ bearings, fix, reportedPosition, selectedPosition, onMapTap, onSpotSelect, className }: CaseMapProps) {
+export default function CaseMap({ bearings, fix, reportedPosition, selectedPosition, onMapTap, onSpotSelect, places, focus, className }: CaseMapProps) {
   const current = fix?.current?.fix;
   const okFix = current && current.ok ? current : null;
   const outlierIds = useMemo(() => new Set(okFix?.outlierIds ?? []), [okFix]);
@@ -58,6 +64,8 @@ export default function CaseMap({ bearings, fix, reportedPosition, selectedPosit
   if (spots.length) legend.push('spot');
   if (reportedPosition) legend.push('reporter');
   if (selectedPosition) legend.push('picked');
+  if (places?.candidateIds?.size) legend.push('candidate');
+  if (places?.premisesPlaceId || places?.pickedPlaceId) legend.push('premises');
 
   const start = reportedPosition ?? selectedPosition;
   return (
@@ -72,7 +80,7 @@ export default function CaseMap({ bearings, fix, reportedPosition, selectedPosit
           worldCopyJump
           attributionControl={false}
         >
-          <BaseLayers />
+          <BaseLayers places={places} />
           <MapTap onTap={onMapTap} />
           {fix && <TrailLayer fix={fix} />}
           <BearingLayers bearings={bearings} outlierIds={outlierIds} fix={okFix} />
@@ -80,6 +88,7 @@ export default function CaseMap({ bearings, fix, reportedPosition, selectedPosit
           {reportedPosition && <ReporterMarker position={reportedPosition} />}
           {selectedPosition && <PickedPositionMarker position={selectedPosition} label="next bearing here" />}
           <SpotMarkers spots={spots} onSelect={onSpotSelect} />
+          <FlyTo focus={focus} />
           <FitBoundsOnce points={fitPoints} complete={fix !== undefined} refitKey={bearings.filter((b) => !b.excluded).length} />
         </MapContainer>
       </div>

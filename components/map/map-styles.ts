@@ -21,7 +21,7 @@ export const PALETTE = {
 /** Plain background shown when map tiles are off or fail. */
 export const PLAIN_BACKGROUND = '#f3f5f1';
 
-export type LineKind = 'bearing' | 'outlier' | 'excluded' | 'ellipse' | 'ellipseAlt' | 'trail' | 'grid';
+export type LineKind = 'bearing' | 'outlier' | 'excluded' | 'ellipse' | 'ellipseAlt' | 'trail' | 'grid' | 'street' | 'building' | 'candidate' | 'premises';
 
 export const LINE_STYLES: Record<LineKind, PathOptions> = {
   bearing: { color: PALETTE.hush700, weight: 3, opacity: 0.95 },
@@ -31,4 +31,9 @@ export const LINE_STYLES: Record<LineKind, PathOptions> = {
   ellipseAlt: { color: PALETTE.alarm800, weight: 2, dashArray: '8 6', fill: false },
   trail: { color: PALETTE.inkSoft, weight: 1.5, opacity: 0.9 },
   grid: { color: '#9aa8b5', weight: 1, opacity: 0.7 },
+  // The places layer: quiet enough to sit under the hunt's geometry.
+  street: { color: '#c9cfc4', weight: 9, opacity: 1, lineCap: 'round' },
+  building: { color: '#8d8a80', weight: 1, fillColor: '#dcd6c8', fillOpacity: 0.9 },
+  candidate: { color: PALETTE.flare700, weight: 2.5, fillColor: '#f2c879', fillOpacity: 0.95 },
+  premises: { color: PALETTE.alarm800, weight: 3.5, fillColor: '#e9a39e', fillOpacity: 0.95 },
 };

@@ -4,6 +4,7 @@ import { appendEvent, insertCase } from '../cases';
 import { insertBearing } from '../bearings';
 import { recomputeFix } from '@/lib/hunt/fix';
 import { geodesicDirect, geodesicInverse } from '@/lib/df/internal/geodesy';
+import { seedDemoTown } from './demo-town';
 
 /**
  * The demo scenario: a fictional club in the fictional town of Quillon, placed on open,
@@ -12,6 +13,11 @@ import { geodesicDirect, geodesicInverse } from '@/lib/df/internal/geodesy';
  */
 export const DEMO_PASSWORD = 'quietfix-demo';
 export const DEMO_CENTRE = { lat: -31.052, lon: 129.748 };
+/** Where the demo's made-up noise sources are (the open and the located case). */
+export const DEMO_SOURCES = {
+  open: { lat: DEMO_CENTRE.lat + 0.0012, lon: DEMO_CENTRE.lon + 0.0021 },
+  located: { lat: DEMO_CENTRE.lat - 0.0062, lon: DEMO_CENTRE.lon + 0.0114 },
+};
 
 export const DEMO_USERS = [
   { email: 'chair@example.test', name: 'Ada Fenwick', callSign: 'QA1CHR', role: 'admin' },
@@ -68,6 +74,7 @@ export async function seedDemo(trx: Knex.Transaction): Promise<void> {
     .insert({ id: 1, club_name: 'Quillon Heath Radio Club', contact_email: 'committee@example.test', locate_threshold_m: 75, reminder_days: 14 })
     .onConflict('id')
     .ignore();
+  await seedDemoTown(trx, DEMO_SOURCES.open, DEMO_SOURCES.located);
 
   const open = await insertCase(trx, {
     title: 'Rasping hash on 80 m and 40 m in the evenings',
@@ -87,7 +94,7 @@ export async function seedDemo(trx: Knex.Transaction): Promise<void> {
   });
   await appendEvent(trx, { caseId: open.id, actorId: ids.member, kind: 'reported', data: { title: open.title }, visibility: 'all' });
   await appendEvent(trx, { caseId: open.id, actorId: ids.coordinator, kind: 'assigned', data: { assigneeId: ids.hunter, assigneeName: 'Cleo Marchetti' } });
-  await seedBearings(trx, open.id, ids.hunter, { lat: DEMO_CENTRE.lat + 0.0012, lon: DEMO_CENTRE.lon + 0.0021 }, [
+  await seedBearings(trx, open.id, ids.hunter, DEMO_SOURCES.open, [
     { fromSourceDeg: 250, rangeM: 650, errorDeg: 1.5, sigmaDeg: 4, frequencyKhz: 3650 },
     { fromSourceDeg: 330, rangeM: 800, errorDeg: -2, sigmaDeg: 4, frequencyKhz: 7100 },
   ]);
@@ -103,7 +110,7 @@ export async function seedDemo(trx: Knex.Transaction): Promise<void> {
     status: 'located',
   });
   await appendEvent(trx, { caseId: located.id, actorId: ids.member, kind: 'reported', data: { title: located.title }, visibility: 'all' });
-  await seedBearings(trx, located.id, ids.hunter, { lat: DEMO_CENTRE.lat - 0.0062, lon: DEMO_CENTRE.lon + 0.0114 }, [
+  await seedBearings(trx, located.id, ids.hunter, DEMO_SOURCES.located, [
     { fromSourceDeg: 20, rangeM: 420, errorDeg: 0.6, sigmaDeg: 2, frequencyKhz: 14150 },
     { fromSourceDeg: 115, rangeM: 380, errorDeg: -0.8, sigmaDeg: 2, frequencyKhz: 14150 },
     { fromSourceDeg: 205, rangeM: 510, errorDeg: 0.3, sigmaDeg: 2, frequencyKhz: 18100 },

@@ -22,3 +22,4 @@ export { noisePowerDbm } from './noise-power-dbm';
 export { excessOverNoiseDb } from './excess-over-noise-db';
 export { nullWidthToSigmaDeg, NULL_SIGMA_PRESETS_DEG } from './null-width-to-sigma-deg';
 export { impedanceRatioFromTurns } from './impedance-ratio-from-turns';
+export { whiteningAffine, confidenceRadius, type WhiteningAffine } from './whitening-affine';

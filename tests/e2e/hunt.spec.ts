@@ -5,6 +5,7 @@
  * (Karney 2013) toward an invented source on open land.
  */
 import { expect, test, type Browser, type Page } from '@playwright/test';
+import { signInPage } from '../support/sign-in-page';
 // GeographicLib's Direct/Inverse (thin wrappers that only adapt the CommonJS export).
 import { geodesicDirect, geodesicInverse } from '../../lib/df/internal/geodesy';
 
@@ -24,11 +25,7 @@ async function signedIn(browser: Browser, who: string, geo?: { latitude: number;
     permissions: ['geolocation'],
   });
   const page = await context.newPage();
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(`${who}@example.test`);
-  await page.getByLabel('Password').fill('quietfix-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/cases/);
+  await signInPage(page, `${who}@example.test`);
   return page;
 }
 

@@ -1,4 +1,5 @@
 import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
+import { signInPage } from '../support/sign-in-page';
 
 /**
  * A notice's whole life in the browser: compose from the demo's located case, approve, send
@@ -7,13 +8,6 @@ import { expect, test, type APIRequestContext, type Page } from '@playwright/tes
  */
 const CATCHER = process.env.MAIL_CATCHER_URL ?? 'http://127.0.0.1:8125';
 
-async function signInAs(page: Page, email: string) {
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill('quietfix-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page).toHaveURL(/\/cases/);
-}
 
 async function caughtLink(request: APIRequestContext, to: string): Promise<{ subject: string; link: string }> {
   let found: { subject: string; text: string } | undefined;
@@ -31,7 +25,7 @@ const demoLocatedCaseId = async (page: Page) => (await (await page.request.get('
 
 test('a coordinator notifies a household, the neighbour answers, and the case is resolved', async ({ page, browser }, info) => {
   test.skip(info.project.name !== 'desktop', 'the demo case goes through this once; the phone run checks the response page');
-  await signInAs(page, 'coordinator@example.test');
+  await signInPage(page, 'coordinator@example.test');
   const caseId = await demoLocatedCaseId(page);
   expect((await (await page.request.get(`/api/cases/${caseId}`)).json()).status).toBe('located');
 
@@ -90,7 +84,7 @@ test('a coordinator notifies a household, the neighbour answers, and the case is
 });
 
 test('the response page reads well on a 360-px phone', async ({ page }, info) => {
-  await signInAs(page, 'coordinator@example.test');
+  await signInPage(page, 'coordinator@example.test');
   const caseId = await demoLocatedCaseId(page);
   const email = `e2e-phone-${info.project.name}-${Date.now()}@example.test`;
   // page.request is not a browser page: it must say it comes from the app, as a browser would.

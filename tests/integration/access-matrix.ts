@@ -61,6 +61,12 @@ export const ACCESS: Row[] = [
   { name: 'read the timeline', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/events`, expect: ALL_SIGNED_IN },
   { name: 'comment', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/comments`, body: () => ({ text: '' }), expect: ALL_SIGNED_IN_BAD_BODY },
   { name: 'merge', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/merge`, body: () => ({}), expect: COMMITTEE_BAD_BODY },
+  // From a fix to a door: places are map data for hunters and the committee; a case's candidate
+  // houses and premises (personal data) for the committee and the assigned hunter.
+  { name: 'places in a box', method: 'GET', path: () => '/api/places?bbox=129.745,-31.054,129.755,-31.048', expect: HUNT_READ },
+  { name: 'candidate houses', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/candidates`, expect: HUNT_READ },
+  { name: 'read the premises', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/premises`, expect: HUNT_READ },
+  { name: 'confirm the premises', method: 'PUT', path: (ids) => `/api/cases/${ids.openCase}/premises`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
   { name: 'read own profile', method: 'GET', path: () => '/api/profile', expect: ALL_SIGNED_IN },
   { name: 'change own profile', method: 'PATCH', path: () => '/api/profile', body: () => ({}), expect: ALL_SIGNED_IN_BAD_BODY },
   { name: 'list assignable people', method: 'GET', path: () => '/api/people/hunters', expect: COMMITTEE_READ },

@@ -6,6 +6,8 @@ import type { BearingView, CaseDetail, FixView } from '@/lib/hunt/views';
 import { CaseMapClient } from '@/components/map/case-map-client';
 import { BearingForm } from '@/components/hunt/bearing-form';
 import { CautionList } from '@/components/cautions';
+import { DoorsSection } from '@/components/hunt/doors-section';
+import { useDoors } from '@/components/hunt/use-doors';
 import { BearingList } from './bearing-list';
 import { ConvergenceTrail } from './convergence-trail';
 import { FixSummary } from './fix-summary';
@@ -28,6 +30,7 @@ export function HuntPanel({
   refresh: () => Promise<unknown>;
 }) {
   const [picked, setPicked] = useState<LatLon | null>(null);
+  const doors = useDoors(c.id, fix, c.can.hunt);
   const current = fix?.current?.fix;
   const outlierIds = current?.ok ? current.outlierIds : [];
   return (
@@ -51,10 +54,13 @@ export function HuntPanel({
         selectedPosition={c.can.hunt ? picked : null}
         onMapTap={c.can.hunt ? setPicked : undefined}
         onSpotSelect={c.can.hunt ? (s) => setPicked({ lat: s.lat, lon: s.lon }) : undefined}
+        places={doors.highlight}
+        focus={doors.focus}
         className="h-80"
       />
       {c.can.hunt && <p className="text-sm text-ink-soft">Tap the map, or a suggested spot, to set where the next bearing is taken from.</p>}
       <FixSummary fix={fix} bearings={bearings ?? []} />
+      <DoorsSection doors={doors} canConfirm={c.can.hunt} point={picked} onConfirmed={refresh} />
       {fix && <ConvergenceTrail trail={fix.trail} />}
       {bearings ? (
         <BearingList caseId={c.id} bearings={bearings} outlierIds={outlierIds} canHunt={c.can.hunt} refresh={refresh} />

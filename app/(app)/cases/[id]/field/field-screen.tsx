@@ -12,6 +12,8 @@ import { formatLatLon } from '@/components/hunt/format-position';
 import { HuntWarnings } from '@/components/hunt/hunt-warnings';
 import { SweepEntry } from '@/components/hunt/sweep-entry';
 import { useHuntData } from '@/components/hunt/use-hunt-data';
+import { DoorsSection } from '@/components/hunt/doors-section';
+import { useDoors } from '@/components/hunt/use-doors';
 import { formatApproxMetres } from '@/components/map/map-geometry';
 
 type LatLon = { lat: number; lon: number };
@@ -27,6 +29,7 @@ export function FieldScreen({ caseId }: { caseId: string }) {
   const [sheet, setSheet] = useState<Sheet>(null);
   const [selected, setSelected] = useState<{ position: LatLon; why: string } | null>(null);
   const [saved, setSaved] = useState<string | null>(null);
+  const doors = useDoors(caseId, fix, caseDetail?.can.hunt ?? false);
 
   if (error && !caseDetail) {
     return (
@@ -93,6 +96,8 @@ export function FieldScreen({ caseId }: { caseId: string }) {
           setSaved(null);
           setSelected({ position: { lat: s.lat, lon: s.lon }, why: `suggested spot, ellipse ${formatApproxMetres(s.expectedSemiMajorM)} expected` });
         }}
+        places={doors.highlight}
+        focus={doors.focus}
       />
 
       <div aria-live="polite" className="space-y-2">
@@ -111,6 +116,7 @@ export function FieldScreen({ caseId }: { caseId: string }) {
 
       <FixSummary fix={fix} />
       <HuntWarnings fix={fix} />
+      <DoorsSection doors={doors} canConfirm={canHunt} point={selected?.position ?? null} onConfirmed={() => void refresh()} />
       {!canHunt && <p className="text-ink-soft">You can follow this hunt but not add bearings to it.</p>}
       <BearingList caseId={caseId} bearings={bearings ?? []} outlierIds={outlierIds} canEdit={canHunt} onChanged={refresh} />
 

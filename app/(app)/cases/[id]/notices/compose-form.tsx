@@ -3,7 +3,9 @@
 import { useEffect, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { callApi } from '@/lib/api/client';
+import useSWR from 'swr';
+import { callApi, fetchJson } from '@/lib/api/client';
+import type { Premises } from '@/db/premises';
 import { TextField } from '@/components/ui/text-field';
 import { NoticeBox } from '@/components/ui/notice-box';
 import { TEMPLATE_KEYS, TEMPLATE_TITLES } from '@/lib/notices/templates';
@@ -15,11 +17,16 @@ type Elsewhere = { caseId: string; reference: string; title: string; status: str
 export function ComposeForm({ caseId, onCreated }: { caseId: string; onCreated: (id: string) => void }) {
   const [problem, setProblem] = useState<string | null>(null);
   const [elsewhere, setElsewhere] = useState<Elsewhere>([]);
-  const { register, handleSubmit, formState, watch, reset, setError } = useForm<NoticeInput>({
+  const { register, handleSubmit, formState, watch, reset, setError, setValue, getValues } = useForm<NoticeInput>({
     resolver: zodResolver(noticeCreateSchema),
     defaultValues: { templateKey: 'first-notice', recipientName: 'The householder', postalAddress: '', email: '', personalNote: '' },
   });
   const address = watch('postalAddress');
+  // The confirmed premises pre-fill the address (one line per part); it stays editable.
+  const premises = useSWR<{ premises: Premises | null }>(`/api/cases/${caseId}/premises`, fetchJson).data?.premises;
+  useEffect(() => {
+    if (premises && !getValues('postalAddress')) setValue('postalAddress', premises.address.split(', ').join('\n'));
+  }, [premises, getValues, setValue]);
 
   // Warn while typing when the same household already has an open notice on another case.
   useEffect(() => {
@@ -63,6 +70,7 @@ export function ComposeForm({ caseId, onCreated }: { caseId: string; onCreated: 
         <label htmlFor="notice-address" className="label">
           Postal address
         </label>
+        {premises && <p className="text-sm text-ink-soft">From the premises confirmed on foot; edit it if the letter needs more.</p>}
         <textarea id="notice-address" rows={3} className="field" aria-invalid={!!e.postalAddress} aria-describedby="notice-address-error" {...register('postalAddress')} />
         {e.postalAddress && (
           <p id="notice-address-error" className="mt-1 text-sm font-semibold text-alarm-600">

@@ -1,6 +1,7 @@
 import { route, json, readJson } from '@/lib/api/handler';
 import { inTransaction } from '@/db';
 import { listNotices, noticesAtAddressElsewhere } from '@/db/notices';
+import { noticesAtPremisesElsewhere } from '@/db/premises';
 import { addressKey } from '@/lib/notices/address-key';
 import { caseForNotices, noticeView } from '@/lib/notices/request';
 import { createDraft, noticeAccess } from '@/lib/notices/service';
@@ -19,7 +20,10 @@ export const GET = route<{ id: string }>(async (req, ctx) => {
   const { me, c } = await caseForNotices(ctx, 'read');
   const { address } = listQuery.parse(Object.fromEntries(req.nextUrl.searchParams));
   const items = (await listNotices(c.id)).map(toNoticeView);
-  const elsewhere = address ? await noticesAtAddressElsewhere(addressKey(address), c.id) : [];
+  const byAddress = address ? await noticesAtAddressElsewhere(addressKey(address), c.id) : [];
+  // The same building (from the confirmed premises) counts as the same household whatever the spelling.
+  const byPlace = (await noticesAtPremisesElsewhere(c.id)).filter((p) => !byAddress.some((a) => a.caseId === p.caseId));
+  const elsewhere = [...byAddress, ...byPlace];
   return json({ items, total: items.length, page: 1, pageSize: items.length, sameAddressElsewhere: elsewhere, can: noticeAccess(me, c), caseStatus: c.status, caseVersion: c.version });
 });
 
