@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { safeText } from './text';
 
 /** Largest box /api/places answers, in degrees of latitude and longitude (about 5.5 km north-south). */
 export const PLACES_MAX_BOX_DEG = 0.05;
@@ -9,8 +10,7 @@ const deg = (min: number, max: number) => z.number().min(min).max(max);
 
 /** `bbox=west,south,east,north` in WGS84 degrees (the RFC 7946 order). */
 export const placesQuerySchema = z.object({
-  bbox: z
-    .string()
+  bbox: safeText()
     .max(200)
     .transform((s, ctx) => {
       const parts = s.split(',').map((p) => Number(p.trim()));
@@ -38,11 +38,11 @@ export const PREMISES_HOW = ['level-peak', 'switch-off-test', 'other'] as const;
 export const premisesSchema = z
   .object({
     placeId: z.uuid('Not a place id.').optional(),
-    address: z.string().trim().max(300).optional(),
+    address: safeText().trim().max(300).optional(),
     lat: z.number().min(-90).max(90).optional(),
     lon: z.number().min(-180).max(180).optional(),
     how: z.enum(PREMISES_HOW, 'Say how the premises were confirmed.'),
-    note: z.string().trim().max(1000).default(''),
+    note: safeText().trim().max(1000).default(''),
   })
   .superRefine((v, ctx) => {
     if (v.placeId) return;
