@@ -22,6 +22,8 @@ export type ClubSettings = {
   locateThresholdM: number;
   reminderDays: number;
   maxPositionAccuracyM: number;
+  /** largest evidence file, megabytes (10^6 bytes) */
+  uploadMaxMb: number;
 };
 
 export type Profile = {

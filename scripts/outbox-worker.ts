@@ -14,6 +14,7 @@ import { pendingNowOrLeased } from '../db/outbox';
 import { env } from '../lib/env';
 import { JOB } from '../lib/jobs/names';
 import { queueConnectionString } from '../lib/jobs/connection';
+import { evidenceTasks } from '../lib/evidence/tasks';
 import { taskList } from '../lib/jobs/tasks';
 import { newWorkerId, rescueOutbox } from '../lib/notices/outbox';
 
@@ -36,9 +37,10 @@ async function main() {
     pollInterval: OUTBOX_POLL_MS,
     noHandleSignals: true,
     logger,
-    taskList: taskList({ workerId }),
+    taskList: taskList({ workerId }, evidenceTasks()),
     parsedCronItems: parseCronItems([
       { task: JOB.prepareReminders, match: '* * * * *' },
+      { task: JOB.cleanUploads, match: '17 * * * *' },
     ]),
   });
   for (const sig of ['SIGINT', 'SIGTERM'] as const) process.on(sig, () => (stopping = true));

@@ -19,14 +19,17 @@ const MAX_RATE = 48000;
 
 const ascii = (b: Uint8Array, at: number) => String.fromCharCode(b[at], b[at + 1], b[at + 2], b[at + 3]);
 
-/** Walks the RIFF chunks and checks the format and that the data chunk is complete. */
-export function inspectWav(bytes: Uint8Array): WavInfo {
+/**
+ * Walks the RIFF chunks and checks the format and that the data chunk is complete. `totalBytes`:
+ * the whole file's size when `bytes` is only its start (the server reads the first few kB).
+ */
+export function inspectWav(bytes: Uint8Array, totalBytes = bytes.length): WavInfo {
   if (bytes.length < 12) throw new AudioRefused(`Not a WAV file: only ${bytes.length} bytes, a RIFF header needs 12.`);
   if (ascii(bytes, 0) !== 'RIFF' || ascii(bytes, 8) !== 'WAVE') throw new AudioRefused('Not a WAV file: bytes 0–11 are not "RIFF….WAVE".');
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   let at = 12;
   let fmt: Omit<WavInfo, 'dataOffset' | 'dataBytes' | 'seconds'> | undefined;
-  while (at + 8 <= bytes.length) {
+  while (at + 8 <= bytes.length && at + 8 <= totalBytes) {
     const id = ascii(bytes, at);
     const size = view.getUint32(at + 4, true);
     const body = at + 8;
@@ -43,15 +46,16 @@ export function inspectWav(bytes: Uint8Array): WavInfo {
       fmt = { sampleRate, channels, bitsPerSample, format: tag === 1 ? 'pcm' : 'float' };
     } else if (id === 'data') {
       if (!fmt) throw new AudioRefused(`The WAV data chunk at byte ${at} comes before its "fmt " chunk.`);
-      const available = bytes.length - body;
-      if (size > available) throw new AudioRefused(`The WAV is truncated: its data chunk at byte ${at} declares ${size} bytes but the file ends ${available} bytes later (at byte ${bytes.length}).`);
+      const available = totalBytes - body;
+      if (size > available) throw new AudioRefused(`The WAV is truncated: its data chunk at byte ${at} declares ${size} bytes but the file ends ${available} bytes later (at byte ${totalBytes}).`);
       const frame = (fmt.bitsPerSample / 8) * fmt.channels;
       if (size < frame) throw new AudioRefused(`The WAV data chunk at byte ${at} holds no samples.`);
       return { ...fmt, dataOffset: body, dataBytes: size, seconds: size / frame / fmt.sampleRate };
     }
     at = body + size + (size % 2); // chunks are padded to an even length
   }
-  throw new AudioRefused(fmt ? `The WAV has no data chunk (the file ends at byte ${bytes.length}).` : `The WAV has no "fmt " chunk (the file ends at byte ${bytes.length}).`);
+  if (totalBytes > bytes.length && at + 8 > bytes.length) throw new AudioRefused(`The WAV's data chunk starts after byte ${bytes.length}: too much before it to check.`);
+  throw new AudioRefused(fmt ? `The WAV has no data chunk (the file ends at byte ${totalBytes}).` : `The WAV has no "fmt " chunk (the file ends at byte ${totalBytes}).`);
 }
 
 /** The recording as one mono channel (stereo averaged), at most `maxSeconds` from the start. */

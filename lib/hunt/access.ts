@@ -41,3 +41,17 @@ export function allowedTransitions(user: Pick<User, 'id' | 'role'>, c: Pick<Case
   if (c.status !== 'open') out.push('open');
   return out;
 }
+
+/**
+ * Evidence files follow the case: whoever may see the case sees its files and may add to them;
+ * a file is deleted by whoever attached it or by the committee. Photos as uploaded (with their
+ * location and camera data) are for the committee; everyone else gets the stripped copy.
+ */
+export function fileAccess(user: Pick<User, 'id' | 'role'>, access: CaseAccess, file?: { uploadedBy: string | null }) {
+  return {
+    see: access.view,
+    add: access.comment,
+    delete: access.committee || (!!file && file.uploadedBy === user.id),
+    originalPhoto: access.committee,
+  };
+}
