@@ -15,18 +15,26 @@ import { deriveToken, hashResponseToken, newNonce } from './token';
 import { buildValues } from './values';
 
 /**
- * Who may do what with a case's notices: the committee composes, approves and sends; the
- * assigned hunter may read and draft. Everyone else: 403 (the case itself is checked first).
+ * Who may do what with a case's notices. The assigned hunter may `read`: see that a notice exists
+ * and its status. The household's name, address, e-mail, answers and response link (`contact`),
+ * composing (`draft`) and approving, sending and recording (`decide`) are the committee's.
+ * Everyone else: 403 (the case itself is checked first).
  */
 export function noticeAccess(user: User, c: CaseRow) {
   const a = caseAccess(user, c);
-  return { read: a.seeHunt, draft: a.seeHunt, decide: a.committee };
+  return { read: a.seeHunt, contact: a.committee, draft: a.committee, decide: a.committee };
 }
+export type NoticeRight = keyof ReturnType<typeof noticeAccess>;
 
-export function requireNoticeRight(user: User, c: CaseRow, right: 'read' | 'draft' | 'decide') {
-  if (!noticeAccess(user, c)[right]) {
-    throw forbidden(right === 'decide' ? 'Only coordinators approve, send and record notices.' : 'Notices are for the committee and the assigned hunter.');
-  }
+const REFUSALS: Record<NoticeRight, string> = {
+  read: 'Notices are for the committee and the assigned hunter.',
+  contact: 'The household’s details and the letter are for the committee (coordinators and admins).',
+  draft: 'Coordinators write notices; tell them what you found in a comment.',
+  decide: 'Only coordinators approve, send and record notices.',
+};
+
+export function requireNoticeRight(user: User, c: CaseRow, right: NoticeRight) {
+  if (!noticeAccess(user, c)[right]) throw forbidden(REFUSALS[right]);
 }
 
 const NOTIFIABLE = ['located', 'notified', 'resolved'];

@@ -25,8 +25,8 @@ export function ComposeForm({ caseId, onCreated }: { caseId: string; onCreated: 
   useEffect(() => {
     if (!address || address.trim().length < 5) return setElsewhere([]);
     const t = setTimeout(async () => {
-      const r = await callApi<{ sameAddressElsewhere: Elsewhere }>(`/api/cases/${caseId}/notices?address=${encodeURIComponent(address)}`);
-      if (r.ok) setElsewhere(r.data.sameAddressElsewhere);
+      const r = await callApi<{ sameAddressElsewhere?: Elsewhere }>(`/api/cases/${caseId}/notices?address=${encodeURIComponent(address)}`);
+      if (r.ok) setElsewhere(r.data.sameAddressElsewhere ?? []);
     }, 400);
     return () => clearTimeout(t);
   }, [address, caseId]);

@@ -10,7 +10,7 @@ import { NoticesScreen } from './notices-screen';
 
 export const metadata: Metadata = { title: 'Notices' };
 
-/** Compose, preview, approve and send the case's notices (committee; the assigned hunter may draft). */
+/** Compose, preview, approve and send the case's notices (committee; the assigned hunter sees that they exist and their status). */
 export default async function NoticesPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const me = await requirePageUser();
