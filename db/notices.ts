@@ -1,6 +1,8 @@
 import type { Knex } from 'knex';
 import { db } from './index';
 import type { TemplateKey, PlaceholderValues } from '@/lib/notices/templates';
+import { whereCaseRight } from './case-scope';
+import type { Role } from './types';
 
 export const NOTICE_STATUSES = ['draft', 'approved', 'queued', 'sent', 'failed', 'hand-delivered', 'cancelled'] as const;
 export type NoticeStatus = (typeof NOTICE_STATUSES)[number];
@@ -112,10 +114,18 @@ export async function activeNoticeAt(q: Knex, caseId: string, key: string, exclu
     .first();
 }
 
-/** Open notices to the same household on other cases that are not resolved: the composer warns about them. */
-export async function noticesAtAddressElsewhere(key: string, caseId: string, q: Knex = db): Promise<{ caseId: string; reference: string; title: string; status: NoticeStatus }[]> {
+/**
+ * Open notices to the same household on other unresolved cases that `viewer` may see: the
+ * composer warns about them (the routes ask only for the committee, who see every case).
+ */
+export async function noticesAtAddressElsewhere(
+  viewer: { id: string; role: Role },
+  key: string,
+  caseId: string,
+  q: Knex = db,
+): Promise<{ caseId: string; reference: string; title: string; status: NoticeStatus }[]> {
   if (!key) return [];
-  return q('notices as n')
+  const b = q('notices as n')
     .join('cases as c', 'c.id', 'n.case_id')
     .distinctOn('c.id')
     .select({ caseId: 'c.id', reference: 'c.reference', title: 'c.title', status: 'n.status' })
@@ -124,6 +134,7 @@ export async function noticesAtAddressElsewhere(key: string, caseId: string, q: 
     .whereNot('n.status', 'cancelled')
     .whereNot('c.status', 'resolved')
     .orderBy([{ column: 'c.id' }, { column: 'n.created_at', order: 'desc' }]);
+  return whereCaseRight(b, viewer, 'view');
 }
 
 export async function insertNotice(

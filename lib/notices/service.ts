@@ -1,12 +1,13 @@
 import type { Knex } from 'knex';
 import type { z } from 'zod';
-import { appendEvent, lockCase } from '@/db/cases';
+import { appendEvent } from '@/db/cases';
 import type { CaseRow, User } from '@/db/types';
 import { activeNoticeAt, insertNotice, lockNotice, writeNotice, type NoticeRow } from '@/db/notices';
 import { getNoticeOutbox, getOutboxByIdempotencyKey, insertOutbox, requeue, type OutboxRow } from '@/db/outbox';
 import { getTemplate } from '@/db/templates';
 import { AppError, conflict, forbidden, notFound } from '@/lib/errors';
 import { caseAccess } from '@/lib/hunt/access';
+import { lockVisibleCase } from '@/lib/hunt/case-detail';
 import { applyTransition, ruleNotMet } from '@/lib/hunt/transitions';
 import type { noticeBaseSchema, noticePatchSchema } from '@/lib/validation/notices';
 import { addressKey } from './address-key';
@@ -48,18 +49,18 @@ function staleNotice(n: NoticeRow): AppError {
   return conflict('Someone changed this notice after you loaded it. Reload to see the change, then try again.', { currentVersion: n.version });
 }
 
-/** Loads and locks a notice of this case, or 404. */
-export async function lockCaseNotice(trx: Knex.Transaction, caseId: string, noticeId: string): Promise<{ c: CaseRow; n: NoticeRow }> {
-  const c = await lockCase(trx, caseId);
-  const n = c && (await lockNotice(trx, noticeId));
-  if (!c || !n || n.caseId !== caseId) throw notFound('No such notice on this case.');
+/** Locks the case (if `me` may see it) and a notice of it, or 404. */
+export async function lockCaseNotice(trx: Knex.Transaction, me: User, caseId: string, noticeId: string): Promise<{ c: CaseRow; n: NoticeRow }> {
+  const { row: c } = await lockVisibleCase(trx, me, caseId);
+  const n = await lockNotice(trx, noticeId);
+  if (!n || n.caseId !== caseId) throw notFound('No such notice on this case.');
   return { c, n };
 }
 
 type Draft = z.output<typeof noticeBaseSchema>;
 
 export async function createDraft(trx: Knex.Transaction, me: User, caseId: string, input: Draft): Promise<NoticeRow> {
-  const c = (await lockCase(trx, caseId))!;
+  const { row: c } = await lockVisibleCase(trx, me, caseId);
   requireNoticeRight(me, c, 'draft');
   if (!NOTIFIABLE.includes(c.status)) throw ruleNotMet('Notices are written once the source is located: locate the case first.');
   const key = addressKey(input.postalAddress);
@@ -78,7 +79,7 @@ export async function createDraft(trx: Knex.Transaction, me: User, caseId: strin
 }
 
 export async function editDraft(trx: Knex.Transaction, me: User, caseId: string, noticeId: string, input: z.output<typeof noticePatchSchema>): Promise<void> {
-  const { c, n } = await lockCaseNotice(trx, caseId, noticeId);
+  const { c, n } = await lockCaseNotice(trx, me, caseId, noticeId);
   requireNoticeRight(me, c, 'draft');
   if (n.version !== input.version) throw staleNotice(n);
   if (n.status !== 'draft') throw ruleNotMet(`This notice is ${n.status}: only drafts can be edited.`);
@@ -97,7 +98,7 @@ export async function editDraft(trx: Knex.Transaction, me: User, caseId: string,
 
 /** Freezes the texts and values, makes the response link (nonce) and marks the notice approved. */
 export async function approve(trx: Knex.Transaction, me: User, caseId: string, noticeId: string, version: number): Promise<void> {
-  const { c, n } = await lockCaseNotice(trx, caseId, noticeId);
+  const { c, n } = await lockCaseNotice(trx, me, caseId, noticeId);
   requireNoticeRight(me, c, 'decide');
   if (n.version !== version) throw staleNotice(n);
   if (n.status !== 'draft') throw ruleNotMet(`This notice is already ${n.status}.`);
@@ -122,7 +123,7 @@ export async function approve(trx: Knex.Transaction, me: User, caseId: string, n
  * Idempotent: the same key, or a second click while it is queued or sent, returns the same row.
  */
 export async function queueSend(trx: Knex.Transaction, me: User, caseId: string, noticeId: string, idempotencyKey: string): Promise<{ outbox: OutboxRow; created: boolean }> {
-  const { c, n } = await lockCaseNotice(trx, caseId, noticeId);
+  const { c, n } = await lockCaseNotice(trx, me, caseId, noticeId);
   requireNoticeRight(me, c, 'decide');
   const key = `send:${idempotencyKey}`;
   const byKey = await getOutboxByIdempotencyKey(trx, key);
@@ -150,7 +151,7 @@ export async function queueSend(trx: Knex.Transaction, me: User, caseId: string,
 
 /** A coordinator tries a failed e-mail again: same row, same Message-ID, fresh tries. */
 export async function retrySend(trx: Knex.Transaction, me: User, caseId: string, noticeId: string): Promise<void> {
-  const { c, n } = await lockCaseNotice(trx, caseId, noticeId);
+  const { c, n } = await lockCaseNotice(trx, me, caseId, noticeId);
   requireNoticeRight(me, c, 'decide');
   const row = await getNoticeOutbox(trx, n.id, true);
   if (!row || row.status !== 'failed' || n.status !== 'failed') throw ruleNotMet('Only a notice whose e-mail failed can be tried again.');
@@ -164,7 +165,7 @@ export async function retrySend(trx: Knex.Transaction, me: User, caseId: string,
  * through the same transition a coordinator would make by hand (lib/hunt/transitions.ts).
  */
 export async function markDelivered(trx: Knex.Transaction, me: User, caseId: string, noticeId: string, deliveredOn: string): Promise<void> {
-  const { c, n } = await lockCaseNotice(trx, caseId, noticeId);
+  const { c, n } = await lockCaseNotice(trx, me, caseId, noticeId);
   requireNoticeRight(me, c, 'decide');
   if (n.status !== 'approved' && n.status !== 'failed') throw ruleNotMet(`This notice is ${n.status}: only an approved letter can be recorded as delivered.`);
   if (new Date(deliveredOn) > new Date()) throw ruleNotMet('The delivery date is in the future.');

@@ -111,4 +111,28 @@ describe('list endpoints', () => {
     const bad = await api('/api/cases?page=0', { session: sessions.admin });
     expect(bad.status).toBe(400);
   });
+  it('list what the case page opens, by the same rule: a hunter sees the case they reported, not one assigned to someone else', async () => {
+    const filed = await api('/api/cases', {
+      session: sessions.hunter,
+      body: {
+        title: `Hunter's own report ${Date.now()}`,
+        sound: 'hiss',
+        soundNote: '',
+        description: 'Reported by a hunter about their own street.',
+        frequencies: [{ value: 7.05, unit: 'MHz' }],
+        schedule: { days: [], pattern: 'intermittent', note: '' },
+        position: { lat: -31.51, lon: 129.41 + (Date.now() % 1000) / 1e5, source: 'map' },
+        consentShareName: false,
+      },
+    });
+    expect(filed.status, filed.text).toBe(201);
+    const id = filed.json.case.id;
+    expect((await api(`/api/cases/${id}`, { session: sessions.hunter })).status).toBe(200);
+    const listed = await api(`/api/cases?q=${encodeURIComponent(filed.json.case.reference)}`, { session: sessions.hunter });
+    expect(listed.json.items.map((c: { id: string }) => c.id)).toEqual([id]);
+    // The matrix's neighbour case is unassigned and reported by the coordinator: neither list nor page.
+    const other = await api(`/api/cases?q=${encodeURIComponent('Matrix neighbour case')}`, { session: sessions.hunter });
+    expect(other.json.items.map((c: { id: string }) => c.id)).not.toContain(ids.otherLocatedCase);
+    expect((await api(`/api/cases/${ids.otherLocatedCase}`, { session: sessions.hunter })).status).toBe(404);
+  });
 });

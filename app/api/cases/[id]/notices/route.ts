@@ -20,7 +20,7 @@ export const GET = route<{ id: string }>(async (req, ctx) => {
   const { address } = listQuery.parse(Object.fromEntries(req.nextUrl.searchParams));
   const can = noticeAccess(me, c);
   const items = await noticeItems(me, c);
-  const elsewhere = can.contact ? { sameAddressElsewhere: address ? await noticesAtAddressElsewhere(addressKey(address), c.id) : [] } : {};
+  const elsewhere = can.contact ? { sameAddressElsewhere: address ? await noticesAtAddressElsewhere(me, addressKey(address), c.id) : [] } : {};
   return json({ items, total: items.length, page: 1, pageSize: items.length, ...elsewhere, can, caseStatus: c.status, caseVersion: c.version });
 });
 
@@ -29,6 +29,6 @@ export const POST = route<{ id: string }>(async (req, ctx) => {
   const { me, c } = await caseForNotices(ctx, 'draft');
   const input = noticeCreateSchema.parse(await readJson(req));
   const n = await inTransaction((trx) => createDraft(trx, me, c.id, input));
-  const elsewhere = await noticesAtAddressElsewhere(n.addressKey, c.id);
+  const elsewhere = await noticesAtAddressElsewhere(me, n.addressKey, c.id);
   return json({ notice: await noticeView(me, c, n.id), sameAddressElsewhere: elsewhere }, 201);
 });

@@ -8,7 +8,7 @@ import { noticePatchSchema } from '@/lib/validation/notices';
 /** One notice; the household's details and the other-case warning for the committee only. */
 export const GET = route<{ id: string; noticeId: string }>(async (_req, ctx) => {
   const { me, c, n } = await noticeForRequest(ctx, 'read');
-  const elsewhere = noticeAccess(me, c).contact ? { sameAddressElsewhere: await noticesAtAddressElsewhere(n.addressKey, c.id) } : {};
+  const elsewhere = noticeAccess(me, c).contact ? { sameAddressElsewhere: await noticesAtAddressElsewhere(me, n.addressKey, c.id) } : {};
   return json({ notice: await noticeView(me, c, n.id), ...elsewhere });
 });
 
