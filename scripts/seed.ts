@@ -1,10 +1,9 @@
 /** Seeds the demo scenario into the configured database, once: an existing user list is left alone. */
 import { db } from '../db/index';
-import { seedDemo } from '../db/seeds/demo';
+import { alreadySeeded, seedDemo } from '../db/seeds/demo';
 
 async function main() {
-  const [{ count }] = await db('users').count<{ count: string }[]>({ count: '*' });
-  if (Number(count) > 0) {
+  if (await alreadySeeded(db)) {
     console.log('quietfix: demo data already present; not seeding again.');
     return;
   }

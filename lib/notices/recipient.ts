@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import type { z } from 'zod';
 import { inTransaction } from '@/db';
-import { appendEvent } from '@/db/cases';
+import { appendEvent, caseRefs } from '@/db/cases';
 import { answersInLastHour, getNoticeByTokenHash, insertAnswer, listAnswers, lockNotice, type NoticeRow } from '@/db/notices';
 import { notFound, tooManyRequests } from '@/lib/errors';
 import { ANSWER_KINDS, type answerSchema } from '@/lib/validation/notices';
@@ -64,7 +64,7 @@ export async function recordAnswer(token: string, client: string, a: z.output<ty
       throw tooManyRequests('Thank you, we already have several answers from you in the last hour. Please try again later or write to the club.', 3600);
     }
     const saved = await insertAnswer(trx, { noticeId: n.id, kind: a.kind, message: a.message, contact: a.contact, clientHash: ch });
-    const c = await trx('cases').where({ id: n.caseId }).first('reference', 'title');
+    const [c] = await caseRefs(trx, [n.caseId]);
     await appendEvent(trx, {
       caseId: n.caseId,
       actorId: null,

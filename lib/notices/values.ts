@@ -1,6 +1,8 @@
 import type { Knex } from 'knex';
 import type { CaseRow } from '@/db/types';
-import type { FrozenNotice, NoticeRow } from '@/db/notices';
+import { firstNoticeDate, type FrozenNotice, type NoticeRow } from '@/db/notices';
+import { casePeople } from '@/db/cases';
+import { getClubSettings } from '@/db/settings';
 import { getTemplate } from '@/db/templates';
 import { noticeConfig } from './config';
 import { deriveToken } from './token';
@@ -25,14 +27,13 @@ export async function buildValues(
   n: Pick<NoticeRow, 'recipientName' | 'personalNote' | 'followUpOf'>,
   p: { senderName: string; noticeDate: Date; expiresOn: Date | null },
 ): Promise<PlaceholderValues> {
-  const club = (await q('club_settings').where({ id: 1 }).first('club_name', 'contact_email')) ?? { club_name: 'Quietfix club', contact_email: 'committee@example.test' };
-  const reporter = c.consentShareName && c.reporterId ? await q('users').where({ id: c.reporterId }).first('name') : undefined;
-  const first = n.followUpOf ? await q('notices').where({ id: n.followUpOf }).first('sent_at', 'delivered_on', 'approved_at') : undefined;
-  const firstDate = first ? (first.sent_at ?? first.delivered_on ?? first.approved_at) : null;
+  const club = await getClubSettings(q);
+  const [reporter] = c.consentShareName ? await casePeople(q, [c.reporterId]) : [];
+  const firstDate = n.followUpOf ? await firstNoticeDate(q, n.followUpOf) : null;
   return {
     recipientName: n.recipientName,
-    clubName: club.club_name,
-    clubContactEmail: club.contact_email,
+    clubName: club.clubName,
+    clubContactEmail: club.contactEmail,
     caseReference: c.reference,
     senderName: p.senderName,
     personalNote: n.personalNote,
