@@ -4,7 +4,7 @@ import type { TemplateKey, PlaceholderValues } from '@/lib/notices/templates';
 import { whereCaseRight } from './case-scope';
 import type { Role } from './types';
 
-export const NOTICE_STATUSES = ['draft', 'approved', 'queued', 'sent', 'failed', 'hand-delivered', 'cancelled'] as const;
+export const NOTICE_STATUSES = ['draft', 'approved', 'queued', 'sent', 'failed', 'hand-delivered'] as const;
 export type NoticeStatus = (typeof NOTICE_STATUSES)[number];
 /** Statuses that hold the household's one place on a case (the partial unique index). */
 export const ACTIVE_STATUSES: NoticeStatus[] = ['draft', 'approved', 'queued', 'failed'];
@@ -131,7 +131,6 @@ export async function noticesAtAddressElsewhere(
     .select({ caseId: 'c.id', reference: 'c.reference', title: 'c.title', status: 'n.status' })
     .where('n.address_key', key)
     .whereNot('n.case_id', caseId)
-    .whereNot('n.status', 'cancelled')
     .whereNot('c.status', 'resolved')
     .orderBy([{ column: 'c.id' }, { column: 'n.created_at', order: 'desc' }]);
   return whereCaseRight(b, viewer, 'view');

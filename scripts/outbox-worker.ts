@@ -9,7 +9,7 @@
  */
 import { db } from '../db/index';
 import { pendingNowOrLeased } from '../db/outbox';
-import { noticeConfig } from '../lib/notices/config';
+import { env } from '../lib/env';
 import { newWorkerId, runWorkerOnce } from '../lib/notices/outbox';
 
 const drainArg = process.argv.find((a) => a === '--drain' || a.startsWith('--drain='));
@@ -23,7 +23,7 @@ for (const sig of ['SIGINT', 'SIGTERM'] as const) process.on(sig, () => (stoppin
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 async function main() {
-  const { OUTBOX_POLL_MS } = noticeConfig();
+  const { OUTBOX_POLL_MS } = env;
   console.log(`quietfix outbox worker ${workerId} started${drain ? ' (drain)' : ''}`);
   while (!stopping) {
     let r;

@@ -5,7 +5,7 @@ import { getBearing, listBearings, type BearingWithAuthor } from '@/db/bearings'
 import { fixTrail, insertFixSnapshot, latestFixSnapshot } from '@/db/fixes';
 import { loopCircumferences } from '@/db/users';
 import { getClubSettings } from '@/db/settings';
-import { estimateFix, sanityWarnings, suggestNextSpots, type Fix, type LineOfBearing } from '@/lib/df';
+import { declinationInfo, estimateFix, sanityWarnings, suggestNextSpots, type Fix, type LineOfBearing } from '@/lib/df';
 import { notFound } from '@/lib/errors';
 import { toBearingView } from './to-view';
 import type { BearingView, FixView } from './views';
@@ -25,12 +25,16 @@ export async function recomputeFix(trx: Knex.Transaction, caseId: string, cause:
   return fix;
 }
 
-/** Plain-language warnings about each active line's setup: loop size for its frequency, near field. */
+/** Plain-language warnings about each active line's setup: the magnetic model's validity, loop size for its frequency, near field. */
 async function setupWarnings(q: Knex, bearings: BearingWithAuthor[], fix: Fix | undefined): Promise<string[]> {
   const loops = await loopCircumferences([...new Set(bearings.map((b) => b.authorId).filter((x): x is string => !!x))], q);
   const out = new Set<string>();
   for (const b of bearings) {
-    if (b.excluded || !b.frequencyKhz) continue;
+    if (b.excluded) continue;
+    // The magnetic model's own caution (outside its validity window), for each magnetic line it converted.
+    const model = b.reference === 'magnetic' ? declinationInfo(b.lat, b.lon, new Date(b.takenAt)).warning : undefined;
+    if (model) out.add(`${b.authorName ?? 'A hunter'}'s line at ${b.azimuthTrueDeg.toFixed(1)}°: ${model}`);
+    if (!b.frequencyKhz) continue;
     const distanceM = fix?.ok ? distance([b.lon, b.lat], [fix.lon, fix.lat], { units: 'meters' }) : undefined;
     for (const w of sanityWarnings({ frequencyHz: b.frequencyKhz * 1000, loopCircumferenceM: b.authorId ? loops.get(b.authorId) : undefined, distanceM })) {
       out.add(`${b.authorName ?? 'A hunter'}'s line at ${b.azimuthTrueDeg.toFixed(1)}°: ${w}`);

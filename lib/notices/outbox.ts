@@ -7,7 +7,7 @@ import { appendEvent, lockCase, writeCase } from '@/db/cases';
 import { getNotice, lockNotice, writeNotice } from '@/db/notices';
 import { claimDue, getOutboxRow, lockOutboxRow, markEffectsApplied, markFailed, markSent, sentWithoutEffects, type OutboxRow } from '@/db/outbox';
 import { mailer } from '@/lib/mail/send';
-import { noticeConfig } from './config';
+import { env } from '@/lib/env';
 import { renderFrozen } from './values';
 import { prepareReminders } from './reminders';
 
@@ -38,7 +38,7 @@ export type WorkerOptions = {
 export const newWorkerId = () => `${hostname()}:${process.pid}:${randomBytes(4).toString('hex')}`;
 
 function settings(o: WorkerOptions) {
-  const c = noticeConfig();
+  const c = env;
   return {
     q: o.knex ?? db,
     transport: o.transport ?? mailer(),
@@ -61,7 +61,7 @@ export async function claimBatch(o: WorkerOptions & { workerId: string }): Promi
 }
 
 async function composeMessage(q: Knex, row: OutboxRow) {
-  const base = { to: row.toAddress, messageId: row.messageId, from: noticeConfig().MAIL_FROM };
+  const base = { to: row.toAddress, messageId: row.messageId, from: env.MAIL_FROM };
   if (row.kind === 'alert') return { ...base, subject: row.subject ?? '', text: row.textBody ?? '', html: row.htmlBody ?? undefined };
   const n = await getNotice(row.noticeId!, q);
   if (!n?.frozen) throw new Error('the notice is missing or was never approved');

@@ -6,7 +6,7 @@ import { answersInLastHour, getNoticeByTokenHash, insertAnswer, listAnswers, loc
 import { notFound, tooManyRequests } from '@/lib/errors';
 import { ANSWER_KINDS, type answerSchema } from '@/lib/validation/notices';
 import { queueCommitteeAlert } from './alerts';
-import { noticeConfig } from './config';
+import { appUrl } from './config';
 import { hashResponseToken, looksLikeToken } from './token';
 import { longDate, renderFrozen } from './values';
 
@@ -81,7 +81,7 @@ export async function recordAnswer(token: string, client: string, a: z.output<ty
         `Answer: ${ANSWER_KINDS[a.kind]}`,
         ...(a.message ? [`Their words: ${a.message}`] : []),
         ...(a.contact ? [`How to reach them: ${a.contact}`] : []),
-        `The case: ${noticeConfig().APP_URL.replace(/\/$/, '')}/cases/${n.caseId}`,
+        `The case: ${appUrl(`/cases/${n.caseId}`)}`,
       ],
     });
     return { id: saved.id };

@@ -3,7 +3,7 @@ import { appendEvent, lockCase } from '@/db/cases';
 import { activeNoticeAt, dueForReminder, insertNotice, lockNotice, markReminderChecked } from '@/db/notices';
 import { getClubSettings } from '@/db/settings';
 import { queueCommitteeAlert } from './alerts';
-import { noticeConfig } from './config';
+import { appUrl } from './config';
 
 /**
  * Reminders: a first notice with no answer after the club's reminder_days gets a follow-up
@@ -39,7 +39,7 @@ export async function prepareReminders(q: Knex, limit = 20): Promise<number> {
         lines: [
           `The notice to ${n.recipientName} (${c.reference}, "${c.title}") has had no answer since it went out.`,
           'Quietfix prepared a follow-up draft from the follow-up template. Nothing is sent until a coordinator approves it.',
-          `Review it here: ${noticeConfig().APP_URL.replace(/\/$/, '')}/cases/${c.id}/notices`,
+          `Review it here: ${appUrl(`/cases/${c.id}/notices`)}`,
         ],
       });
       prepared++;

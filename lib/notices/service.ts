@@ -11,7 +11,7 @@ import { lockVisibleCase } from '@/lib/hunt/case-detail';
 import { applyTransition, ruleNotMet } from '@/lib/hunt/transitions';
 import type { noticeBaseSchema, noticePatchSchema } from '@/lib/validation/notices';
 import { addressKey } from './address-key';
-import { messageIdDomain, noticeConfig } from './config';
+import { linkExpiry, messageIdDomain } from './config';
 import { deriveToken, hashResponseToken, newNonce } from './token';
 import { buildValues } from './values';
 
@@ -104,7 +104,7 @@ export async function approve(trx: Knex.Transaction, me: User, caseId: string, n
   if (n.status !== 'draft') throw ruleNotMet(`This notice is already ${n.status}.`);
   const tpl = (await getTemplate(n.templateKey, trx))!;
   const nonce = newNonce();
-  const expires = new Date(Date.now() + noticeConfig().NOTICE_TOKEN_DAYS * 86_400_000);
+  const expires = linkExpiry();
   const values = await buildValues(trx, c, n, { senderName: me.name, noticeDate: new Date(), expiresOn: expires });
   await writeNotice(trx, n.id, {
     status: 'approved',

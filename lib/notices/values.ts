@@ -4,7 +4,7 @@ import { firstNoticeDate, type FrozenNotice, type NoticeRow } from '@/db/notices
 import { casePeople } from '@/db/cases';
 import { getClubSettings } from '@/db/settings';
 import { getTemplate } from '@/db/templates';
-import { noticeConfig } from './config';
+import { appUrl, linkExpiry } from './config';
 import { deriveToken } from './token';
 import { renderNotice, wrapHtml, type Rendered } from './render';
 import type { PlaceholderValues } from './templates';
@@ -12,7 +12,7 @@ import type { PlaceholderValues } from './templates';
 export const longDate = (d: Date | string) =>
   new Date(d).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
 
-export const responseLink = (token: string) => `${noticeConfig().APP_URL.replace(/\/$/, '')}/r/${token}`;
+export const responseLink = (token: string) => appUrl(`/r/${token}`);
 
 /** Shown in previews before approval, when no link exists yet. */
 export const LINK_NOT_YET = '(the private response link is made when the notice is approved)';
@@ -58,7 +58,7 @@ export function renderFrozen(n: Pick<NoticeRow, 'id' | 'tokenNonce'> & { frozen:
 export async function renderCurrent(q: Knex, c: CaseRow, n: NoticeRow, senderName: string): Promise<NoticeMessage> {
   if (n.frozen) return renderFrozen({ ...n, frozen: n.frozen });
   const tpl = (await getTemplate(n.templateKey, q))!;
-  const expires = new Date(Date.now() + noticeConfig().NOTICE_TOKEN_DAYS * 86_400_000);
+  const expires = linkExpiry();
   const values = await buildValues(q, c, n, { senderName, noticeDate: new Date(), expiresOn: expires });
   return renderFrozen({ id: n.id, tokenNonce: null, frozen: { subject: tpl.subject, body: tpl.body, values } });
 }
