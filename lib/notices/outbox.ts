@@ -8,6 +8,7 @@ import { getNotice, lockNotice, writeNotice } from '@/db/notices';
 import { claimDue, getOutboxRow, lockOutboxRow, markEffectsApplied, markFailed, markSent, sentWithoutEffects, type OutboxRow } from '@/db/outbox';
 import { mailer } from '@/lib/mail/send';
 import { env } from '@/lib/env';
+import { backoffMs } from './backoff';
 import { renderFrozen } from './values';
 import { prepareReminders } from './reminders';
 
@@ -51,8 +52,6 @@ function settings(o: WorkerOptions) {
   };
 }
 
-/** Wait before try n+1 after n failed tries: base, 2 x base, 4 x base ... capped. */
-export const backoffMs = (attempts: number, baseMs: number, capMs: number) => Math.min(capMs, baseMs * 2 ** Math.max(0, attempts - 1));
 
 /** Claims due rows for this worker (lease + FOR UPDATE SKIP LOCKED). */
 export async function claimBatch(o: WorkerOptions & { workerId: string }): Promise<OutboxRow[]> {
