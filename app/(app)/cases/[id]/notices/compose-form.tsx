@@ -1,24 +1,28 @@
 'use client';
 
 import { useEffect, useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import { callApi } from '@/lib/api/client';
+import { useApiForm } from '@/lib/api/use-api-form';
+import { FormProblemBox } from '@/components/ui/form-problem';
 import { TextField } from '@/components/ui/text-field';
 import { NoticeBox } from '@/components/ui/notice-box';
 import { TEMPLATE_KEYS, TEMPLATE_TITLES } from '@/lib/notices/templates';
-import { noticeCreateSchema, type NoticeInput } from '@/lib/validation/notices';
+import { noticeCreateSchema } from '@/lib/validation/notices';
 import type { NoticeView } from '@/lib/notices/views';
 
 type Elsewhere = { caseId: string; reference: string; title: string; status: string }[];
 
 export function ComposeForm({ caseId, onCreated }: { caseId: string; onCreated: (id: string) => void }) {
-  const [problem, setProblem] = useState<string | null>(null);
   const [elsewhere, setElsewhere] = useState<Elsewhere>([]);
-  const { register, handleSubmit, formState, watch, reset, setError } = useForm<NoticeInput>({
-    resolver: zodResolver(noticeCreateSchema),
+  const { form, submit, problem, pending } = useApiForm<typeof noticeCreateSchema, { notice: NoticeView }>(noticeCreateSchema, {
     defaultValues: { templateKey: 'first-notice', recipientName: 'The householder', postalAddress: '', email: '', personalNote: '' },
+    request: () => ({ url: `/api/cases/${caseId}/notices` }),
+    onSuccess: (data) => {
+      form.reset();
+      onCreated(data.notice.id);
+    },
   });
+  const { register, formState, watch } = form;
   const address = watch('postalAddress');
 
   // Warn while typing when the same household already has an open notice on another case.
@@ -31,21 +35,11 @@ export function ComposeForm({ caseId, onCreated }: { caseId: string; onCreated: 
     return () => clearTimeout(t);
   }, [address, caseId]);
 
-  async function onSubmit(values: NoticeInput) {
-    setProblem(null);
-    const r = await callApi<{ notice: NoticeView }>(`/api/cases/${caseId}/notices`, { body: values });
-    if (!r.ok) {
-      for (const i of r.issues ?? []) setError(i.path as keyof NoticeInput, { message: i.message });
-      return setProblem(r.error);
-    }
-    reset();
-    onCreated(r.data.notice.id);
-  }
 
   const e = formState.errors;
   return (
-    <form onSubmit={handleSubmit(onSubmit)} className="space-y-3" noValidate>
-      {problem && <NoticeBox tone="error">{problem}</NoticeBox>}
+    <form onSubmit={submit} className="space-y-3" noValidate>
+      <FormProblemBox problem={problem} />
       <div>
         <label htmlFor="notice-template" className="label">
           Kind of notice
@@ -84,7 +78,7 @@ export function ComposeForm({ caseId, onCreated }: { caseId: string; onCreated: 
         <textarea id="notice-note" rows={3} className="field" aria-invalid={!!e.personalNote} {...register('personalNote')} />
         {e.personalNote && <p className="mt-1 text-sm font-semibold text-alarm-600">{e.personalNote.message}</p>}
       </div>
-      <button type="submit" className="btn-primary w-full sm:w-auto" disabled={formState.isSubmitting}>
+      <button type="submit" className="btn-primary w-full sm:w-auto" disabled={pending}>
         Save draft
       </button>
     </form>
