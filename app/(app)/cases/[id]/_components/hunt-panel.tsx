@@ -6,9 +6,9 @@ import type { BearingView, CaseDetail, FixView } from '@/lib/hunt/views';
 import { CaseMapClient } from '@/components/map/case-map-client';
 import { BearingForm } from '@/components/hunt/bearing-form';
 import { CautionList } from '@/components/cautions';
-import { BearingList } from './bearing-list';
+import { BearingList } from '@/components/hunt/bearing-list';
 import { ConvergenceTrail } from './convergence-trail';
-import { FixSummary } from './fix-summary';
+import { FixSummary } from '@/components/hunt/fix-summary';
 import { CardSection } from './card-section';
 
 type LatLon = { lat: number; lon: number };
@@ -57,7 +57,7 @@ export function HuntPanel({
       <FixSummary fix={fix} bearings={bearings ?? []} />
       {fix && <ConvergenceTrail trail={fix.trail} />}
       {bearings ? (
-        <BearingList caseId={c.id} bearings={bearings} outlierIds={outlierIds} canHunt={c.can.hunt} refresh={refresh} />
+        <BearingList caseId={c.id} bearings={bearings} outlierIds={outlierIds} canEdit={c.can.hunt} refresh={refresh} detail />
       ) : (
         <p className="text-ink-soft">Loading the bearings…</p>
       )}

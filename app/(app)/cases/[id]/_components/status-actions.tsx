@@ -3,8 +3,8 @@
 import { useState } from 'react';
 import type { CaseStatus } from '@/db/types';
 import type { CaseDetail, FixView } from '@/lib/hunt/views';
-import { ActionMessageBox } from './action-message';
-import type { ActionMessage } from './use-case-action';
+import { ActionMessageBox } from '@/components/ui/action-message';
+import type { ActionMessage } from '@/components/hunt/use-case-action';
 import { LocateForm } from './locate-form';
 import { NotifyForm } from './notify-form';
 import { ResolveForm } from './resolve-form';
