@@ -25,7 +25,7 @@ const AT_OBSERVER_M = 10;
 /** The likelihood region is traced for at most this many kept lines (beyond, the ellipse is exact enough). */
 const REGION_MAX_LINES = 50;
 /** The region is shown instead of the ellipse when some point of it lies this far off the ellipse (relative). */
-const REGION_DEVIATION = 0.1;
+const REGION_DEVIATION = 0.2;
 /** How far the region is traced, in longest ranges. */
 const REGION_MAX_RANGES = 10;
 
@@ -72,6 +72,30 @@ function solveAll(lines: PreparedLine[]): Solution | Failure {
   return solved;
 }
 
+/** One-way lines with the solution behind them (more than 90 degrees off their sense). */
+function behindAny(solution: Solution) {
+  return solution.rows.filter((r) => r.line.oneWay && Math.abs(bearingResidualDeg(r.aziFromObserverDeg, r.line.azimuthDeg, true)) > 90);
+}
+
+/**
+ * The refusal when the lines, read as two-way, agree on a place behind some one-way line (the
+ * fix can only exist behind it); null when that is not the case.
+ */
+function onlyBehind(lines: PreparedLine[]): Failure | null {
+  if (!lines.some((l) => l.oneWay)) return null;
+  const twoWay = solveAll(lines.map((l) => ({ ...l, oneWay: false })));
+  if (!twoWay.ok || !crossesUsably(twoWay) || twoWay.cost > chiSquareUpper(CONSISTENCY_ALPHA, Math.max(lines.length - 2, 1))) return null;
+  const sense = new Map(lines.map((l) => [l.index, l.oneWay]));
+  const behind = behindAny({ ...twoWay, rows: twoWay.rows.map((r) => ({ ...r, line: { ...r.line, oneWay: sense.get(r.line.index) === true } })) });
+  if (behind.length === 0) return null;
+  const names = behind.map((r) => r.line.name).join(', ');
+  return {
+    ok: false,
+    reason: 'behind-one-way',
+    message: `The lines cross only behind ${behind.length === 1 ? `line ${names}, which is` : `lines ${names}, which are`} marked one-way (sense antenna): check the sense reading, or treat the line as two-way.`,
+  };
+}
+
 /** Chi-square with its degrees of freedom and the variance factor applied to the covariance. */
 function varianceFactor(cost: number, count: number): number {
   const dof = count - 2;
@@ -94,17 +118,19 @@ function regionFor(lines: PreparedLine[], solution: Solution, ellipse: Ellipse, 
   const maxRange = Math.max(...solution.rows.map((r) => r.rangeM));
   const level = chiSquareUpper(1 - confidence, 2) * factor;
   const region = likelihoodRegion(plane, Array.from({ length: lines.length }, (_, i) => i), opt.x, opt.cost, level, 0.25 * ellipse.semiMinorM, REGION_MAX_RANGES * maxRange);
-  // each vertex in units of the ellipse (1 on its boundary)
+  // each vertex in units of the ellipse (1 on its boundary); the region's area (shoelace)
   const az = ellipse.majorAxisAzimuthDeg * DEG;
-  let worst = 0, grow = 1;
-  for (const [e, n] of region.ring) {
+  let worst = 0, area = 0;
+  region.ring.forEach(([e, n], k) => {
     const along = e * Math.sin(az) + n * Math.cos(az);
     const across = e * Math.cos(az) - n * Math.sin(az);
-    const m = Math.hypot(along / ellipse.semiMajorM, across / ellipse.semiMinorM);
-    worst = Math.max(worst, Math.abs(m - 1));
-    grow = Math.max(grow, m);
-  }
+    worst = Math.max(worst, Math.abs(Math.hypot(along / ellipse.semiMajorM, across / ellipse.semiMinorM) - 1));
+    const [e2, n2] = region.ring[(k + 1) % region.ring.length];
+    area += (e * n2 - e2 * n) / 2;
+  });
   if (worst <= REGION_DEVIATION && !region.open) return null;
+  // the ellipse grows to the region's area (never shrinks): its size stays an honest summary
+  const grow = Math.max(1, Math.sqrt(Math.abs(area) / (Math.PI * ellipse.semiMajorM * ellipse.semiMinorM)));
   const ring = region.ring.map((x) => { const p = fromPlane(plane, x); return [p.lon, p.lat] as [number, number]; });
   ring.push(ring[0]);
   return { ring, grow, open: region.open };
@@ -146,26 +172,26 @@ export function estimateFix(lines: LineOfBearing[], opts?: FixOptions): Fix {
   }
   const notices: FixNotice[] = [];
 
-  // duplicates: each group counts once (the first line, with the group's smallest sigma)
+  // duplicates: each group counts once, by its sharpest line (ties: by position, so the input
+  // order never matters)
   const o = meanPosition(prepared);
   const groups = duplicateGroups(prepared, toPlane(prepared, o.lat, o.lon));
   const repeated = new Set<number>();
-  const unique = prepared.map((l) => l);
   for (const g of groups) {
-    const best = g.reduce((a, b) => (prepared[b].sigmaDeg < prepared[a].sigmaDeg ? b : a), g[0]);
-    unique[g[0]] = { ...prepared[g[0]], sigmaDeg: prepared[best].sigmaDeg, weight: prepared[best].weight };
-    for (const i of g.slice(1)) repeated.add(i);
+    const key = (i: number) => [prepared[i].sigmaDeg, prepared[i].lat, prepared[i].lon, prepared[i].azimuthDeg];
+    const rep = g.reduce((a, b) => (compareKeys(key(b), key(a)) < 0 ? b : a), g[0]);
+    for (const i of g) if (i !== rep) repeated.add(i);
     const ids = g.map((i) => prepared[i].name);
     notices.push({ code: 'duplicate-lines', ids, message: `Lines ${ids.join(', ')} look like the same bearing entered more than once (same spot, same direction): counted once.` });
   }
-  const used = unique.filter((_, i) => !repeated.has(i));
+  const used = prepared.filter((_, i) => !repeated.has(i));
   if (used.length < 2) {
     return { ok: false, reason: 'too-few-lines', message: 'A fix needs at least two bearings from different spots (repeated entries of one bearing count once).' };
   }
 
   const all = solveAll(used);
-  if (!all.ok) return all;
-  if (!crossesUsably(all)) return parallel(used.length);
+  if (!all.ok) return onlyBehind(used) ?? all;
+  if (!crossesUsably(all)) return onlyBehind(used) ?? parallel(used.length);
 
   // which lines to set aside
   const choice = chooseLines(used, all);
@@ -179,15 +205,12 @@ export function estimateFix(lines: LineOfBearing[], opts?: FixOptions): Fix {
   }
   const removedIds = choice.removed.map((i) => used[i].name);
 
-  // one-way lines: the source is ahead of each kept one
-  const behind = main.rows.filter((r) => r.line.oneWay && Math.abs(bearingResidualDeg(r.aziFromObserverDeg, r.line.azimuthDeg, true)) > 90);
-  if (behind.length > 0) {
-    const names = behind.map((r) => r.line.name).join(', ');
-    return {
-      ok: false,
-      reason: 'behind-one-way',
-      message: `The lines cross only behind ${behind.length === 1 ? `line ${names}, which is` : `lines ${names}, which are`} marked one-way (sense antenna): check the sense reading, or treat the line as two-way.`,
-    };
+  // one-way lines: the source is ahead of each kept one; when the constrained solve is poor
+  // (inconsistent, or stuck on a one-way observer) but the lines agree behind one, refuse
+  const stuck = main.rows.some((r) => r.line.oneWay && r.rangeM < AT_OBSERVER_M);
+  if (behindAny(main).length > 0 || stuck || (main.cost > chiSquareUpper(CONSISTENCY_ALPHA, Math.max(kept.length - 2, 1)) && kept.some((l) => l.oneWay))) {
+    const refusal = onlyBehind(kept);
+    if (refusal) return refusal;
   }
 
   // honest size: variance factor, then the likelihood region when the ellipse misdescribes it
@@ -251,6 +274,11 @@ export function estimateFix(lines: LineOfBearing[], opts?: FixOptions): Fix {
     notices,
   };
   return fix;
+}
+
+function compareKeys(a: number[], b: number[]): number {
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return a[i] - b[i];
+  return 0;
 }
 
 /** Robust choice of lines, with the kept lines' solution when it was already solved. */
