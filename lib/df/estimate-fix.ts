@@ -4,7 +4,8 @@ import { ellipseFromNormal } from './internal/ellipse-from-normal';
 import { planeOptimum } from './internal/global-search';
 import { likelihoodRegion } from './internal/likelihood-region';
 import { pairwiseIntersections } from './internal/pairwise-intersections';
-import { fromPlane, planeSolve, toPlane } from './internal/plane';
+import { fromPlane, planeSolve, toPlane, type Plane } from './internal/plane';
+import { approxEastNorth } from './internal/geodesy';
 import { lineProblem, prepareLine, type PreparedLine } from './internal/prepare-lines';
 import { chooseByRejection, chooseBySubsets, CONSISTENCY_ALPHA, EXHAUSTIVE_MAX_LINES, type RobustChoice } from './internal/robust-lines';
 import { meanPosition, rowsAt, solveLines, type Solution } from './internal/solve-lines';
@@ -216,7 +217,12 @@ export function estimateFix(lines: LineOfBearing[], opts?: FixOptions): Fix {
   // honest size: variance factor, then the likelihood region when the ellipse misdescribes it
   const factor = varianceFactor(main.cost, kept.length);
   let ellipse = scaled(ellipseFromNormal(main.normal, confidence) as Ellipse, Math.sqrt(factor));
-  const region = regionFor(kept, main, ellipse, factor, confidence);
+  if (choice.ambiguous && choice.candidates && choice.plane) {
+    // cannot tell which line is wrong: the source is near one of the consistent subsets' fixes;
+    // the covariance adds their spread about the fix (a mixture of the candidates, equal weights)
+    ellipse = mixtureEllipse(main, factor, choice.candidates, choice.plane, confidence);
+  }
+  const region = choice.ambiguous && choice.candidates ? null : regionFor(kept, main, ellipse, factor, confidence);
   if (region && region.grow > 1) ellipse = scaled(ellipse, region.grow);
 
   if (removedIds.length > 0) {
@@ -237,8 +243,8 @@ export function estimateFix(lines: LineOfBearing[], opts?: FixOptions): Fix {
         ? 'These three lines disagree more than their sigmas allow, and with only three lines the odd one out cannot be singled out: take a fourth bearing from a new side. The ellipse has been widened.'
         : 'These lines disagree, and they cannot tell which one is wrong: take one more bearing from a new side. The ellipse has been widened.',
     });
-  } else if (factor > 1 && disagree) {
-    notices.push({ code: 'lines-disagree', message: 'The lines disagree more than their stated sigmas allow: the sigmas may be too optimistic. The ellipse has been widened.' });
+  } else if (factor > 1) {
+    notices.push({ code: 'lines-disagree', message: 'The lines disagree more than their stated sigmas allow (a reflection, or sigmas too optimistic?): the ellipse has been widened. One more bearing from a new side would tell.' });
   }
   if (region?.open) {
     notices.push({ code: 'open-region', message: 'The lines barely cross: the source could lie much farther along them. Take a bearing from well to the side.' });
@@ -281,8 +287,21 @@ function compareKeys(a: number[], b: number[]): number {
   return 0;
 }
 
+/** 95 % ellipse of the fix's covariance (times factor) plus the spread of candidate fixes about it. */
+function mixtureEllipse(main: Solution, factor: number, candidates: [number, number][], plane: Plane, confidence: number): Ellipse {
+  const cov = invertSym2(main.normal) as [number, number, number];
+  const [e0, n0] = approxEastNorth(plane.originLat, plane.originLon, main.lat, main.lon);
+  let a = factor * cov[0], b = factor * cov[1], c = factor * cov[2];
+  for (const [e, n] of candidates) {
+    const dE = e - e0, dN = n - n0;
+    a += (dE * dE) / candidates.length; b += (dE * dN) / candidates.length; c += (dN * dN) / candidates.length;
+  }
+  const info = invertSym2([a, b, c]);
+  return (info && ellipseFromNormal(info, confidence)) || scaled(ellipseFromNormal(main.normal, confidence) as Ellipse, Math.sqrt(factor));
+}
+
 /** Robust choice of lines, with the kept lines' solution when it was already solved. */
-function chooseLines(lines: PreparedLine[], all: Solution): RobustChoice & { solution?: Solution } {
+function chooseLines(lines: PreparedLine[], all: Solution): RobustChoice & { solution?: Solution; plane?: Plane } {
   const n = lines.length;
   const keepAll: RobustChoice = { kept: Array.from({ length: n }, (_, i) => i), removed: [], ambiguous: false, suspects: [] };
   if (n < 4) return keepAll;
@@ -290,7 +309,7 @@ function chooseLines(lines: PreparedLine[], all: Solution): RobustChoice & { sol
   const plane = toPlane(lines, all.lat, all.lon);
   if (n <= EXHAUSTIVE_MAX_LINES) {
     const choice = chooseBySubsets(plane);
-    if (choice.removed.length === 0 || !choice.x) return choice;
+    if (choice.removed.length === 0 || !choice.x) return { ...choice, plane };
     const keptLines = choice.kept.map((i) => lines[i]);
     const solved = solveLines(keptLines, fromPlane(plane, choice.x));
     return solved.ok ? { ...choice, solution: solved } : { ...keepAll, ambiguous: true };

@@ -30,6 +30,9 @@ export const EXHAUSTIVE_MAX_LINES = 12;
 /** Probability that clean lines fail the consistency test. */
 export const CONSISTENCY_ALPHA = 0.01;
 
+/** Chi-square margin within which another consistent subset is a credible rival. */
+const RIVAL_MARGIN = 4;
+
 export type RobustChoice = {
   /** Indices (into the lines given) kept and set aside. */
   kept: number[];
@@ -40,6 +43,8 @@ export type RobustChoice = {
   suspects: number[];
   /** Plane position of the kept lines' optimum, when known. */
   x?: [number, number];
+  /** When ambiguous: plane positions of the consistent subsets that disagree. */
+  candidates?: [number, number][];
 };
 
 /** Most lines that may be set aside. */
@@ -96,12 +101,15 @@ export function chooseBySubsets(p: Plane, alpha = CONSISTENCY_ALPHA): RobustChoi
     const normal = normalAt(p, best.x, best.use);
     const limit = chiSquareUpper(0.05, 2);
     const rivals = passing.slice(1).filter((f) => {
+      // a rival must be nearly as likely (likelihood ratio above exp(-RIVAL_MARGIN / 2)) and
+      // put the source elsewhere (outside the best subset's 95 % ellipse)
+      if (f.cost - best.cost > RIVAL_MARGIN) return false;
       const dE = f.x[0] - best.x[0], dN = f.x[1] - best.x[1];
       return normal[0] * dE * dE + 2 * normal[1] * dE * dN + normal[2] * dN * dN > limit;
     });
     if (rivals.length > 0) {
       const suspects = [...new Set([best, ...rivals].flatMap((f) => f.removed))].sort((a, b) => a - b);
-      return { kept: all, removed: [], ambiguous: true, suspects };
+      return { kept: all, removed: [], ambiguous: true, suspects, candidates: [best, ...rivals].map((f) => f.x) };
     }
     return { kept: best.use, removed: best.removed, ambiguous: false, suspects: [], x: best.x };
   }
