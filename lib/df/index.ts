@@ -1,6 +1,7 @@
 /** Bearing math for locating radio-noise sources: pure functions, no I/O. */
 export type { LineOfBearing, Ellipse, Fix, FixEstimate, FixNotice, FixNoticeCode, FixOptions, NullSweepFit, SweepSample, NextSpot, NextSpotOptions } from './types';
 export { estimateFix } from './estimate-fix';
+export { normalizeFix } from './normalize-fix';
 export { declinationDeg } from './declination-deg';
 export { declinationInfo } from './declination-info';
 export { magneticToTrue } from './magnetic-to-true';

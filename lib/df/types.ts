@@ -40,7 +40,9 @@ export type FixNoticeCode =
   /** The fix lies within a few metres of an observer (`ids`: that line). */
   | 'fix-at-observer'
   /** The lines barely cross: the region reaches as far as it was traced. */
-  | 'open-region';
+  | 'open-region'
+  /** A plain note kept from a fix computed by an earlier version (no code was stored). */
+  | 'note';
 
 /** A structured warning: stable code, a plain sentence, the lines concerned. */
 export type FixNotice = { code: FixNoticeCode; message: string; ids?: string[] };

@@ -11,6 +11,8 @@ export const MAX_STARTS = 50;
 /** Up to this many lines every start is iterated; above, only the few best-scoring starts. */
 const ITERATE_ALL_MAX_LINES = 60;
 const ITERATED_STARTS_LARGE = 3;
+/** Lines used to score starts in large sets. */
+const SCORE_LINES = 200;
 
 /** Candidate start points in plane metres (linear start first). */
 export function startCandidates(p: Plane, use?: ArrayLike<number>): [number, number][] {
@@ -25,17 +27,25 @@ export function startCandidates(p: Plane, use?: ArrayLike<number>): [number, num
   return out;
 }
 
-/** The lowest plane cost over `use` from every candidate start; null when nothing solves. */
+/**
+ * The lowest plane cost over `use` from every candidate start; null when nothing solves. Above
+ * ITERATE_ALL_MAX_LINES lines the starts are scored and iterated on SCORE_LINES lines spread over
+ * the set (the ellipsoid solve then refines on all of them), so the search cost stays bounded.
+ */
 export function planeOptimum(p: Plane, use?: ArrayLike<number>): { x: [number, number]; cost: number } | null {
   const m = use ? use.length : p.w.length;
   let starts = startCandidates(p, use);
+  let q = p;
+  let qUse = use;
   if (m > ITERATE_ALL_MAX_LINES) {
-    const scored = starts.map((x) => ({ x, c: costAt(p, x, use) })).sort((a, b) => a.c - b.c);
+    q = subPlane(p, spread(use ?? Array.from({ length: m }, (_, i) => i), SCORE_LINES));
+    qUse = undefined;
+    const scored = starts.map((x) => ({ x, c: costAt(q, x) })).sort((a, b) => a.c - b.c);
     starts = scored.slice(0, ITERATED_STARTS_LARGE).map((s) => s.x);
   }
   let best: { x: [number, number]; cost: number } | null = null;
   for (const s of starts) {
-    const r = planeSolve(p, s, use);
+    const r = planeSolve(q, s, qUse);
     if (r && Number.isFinite(r.cost) && (!best || r.cost < best.cost - 1e-9 * (1 + best.cost))) best = r;
   }
   return best;
@@ -49,11 +59,7 @@ export function planeOptimum(p: Plane, use?: ArrayLike<number>): { x: [number, n
 export function robustStart(p: Plane, cap: number): [number, number] | null {
   const starts = startCandidates(p);
   if (starts.length === 0) return null;
-  const m = p.w.length;
-  const step = Math.max(1, m / SCORE_LINES);
-  const idx: number[] = [];
-  for (let t = 0; t < m && idx.length < SCORE_LINES; t += step) idx.push(Math.floor(t));
-  const sub = subPlane(p, idx);
+  const sub = subPlane(p, spread(Array.from({ length: p.w.length }, (_, i) => i), SCORE_LINES));
   let best = starts[0], bestCost = Infinity;
   for (const s of starts) {
     const c = truncatedCostAt(sub, s, cap);
@@ -62,4 +68,10 @@ export function robustStart(p: Plane, cap: number): [number, number] | null {
   return best;
 }
 
-const SCORE_LINES = 200;
+/** At most this many of the lines, spread evenly over the input order. */
+function spread(idx: ArrayLike<number>, most: number): number[] {
+  const out: number[] = [];
+  const step = Math.max(1, idx.length / most);
+  for (let t = 0; t < idx.length && out.length < most; t += step) out.push(idx[Math.floor(t)]);
+  return out;
+}
