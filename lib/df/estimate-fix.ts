@@ -27,6 +27,8 @@ const AT_OBSERVER_M = 10;
 const REGION_MAX_LINES = 50;
 /** The region is shown instead of the ellipse when some point of it lies this far off the ellipse (relative). */
 const REGION_DEVIATION = 0.2;
+/** Below this ratio of 95 % semi-major to the shortest range the ellipse is trusted as it is. */
+const LINEAR_ENOUGH = 0.08;
 /** How far the region is traced, in longest ranges. */
 const REGION_MAX_RANGES = 10;
 
@@ -114,6 +116,9 @@ function scaled(e: Ellipse, k: number): Ellipse {
  */
 function regionFor(lines: PreparedLine[], solution: Solution, ellipse: Ellipse, factor: number, confidence: number): { ring: [number, number][]; grow: number; open: boolean } | null {
   if (lines.length > REGION_MAX_LINES) return null;
+  // the linearisation is good when the ellipse is small against the ranges: skip the tracing
+  const minRange = Math.min(...solution.rows.map((r) => r.rangeM));
+  if (ellipse.semiMajorM < LINEAR_ENOUGH * minRange) return null;
   const plane = toPlane(lines, solution.lat, solution.lon);
   const opt = planeSolve(plane, [0, 0]) ?? { x: [0, 0] as [number, number], cost: solution.cost };
   const maxRange = Math.max(...solution.rows.map((r) => r.rangeM));
@@ -259,7 +264,8 @@ export function estimateFix(lines: LineOfBearing[], opts?: FixOptions): Fix {
     ? { lat: all.lat, lon: all.lon, ellipse: scaled(ellipseFromNormal(all.normal, confidence) as Ellipse, Math.sqrt(varianceFactor(all.cost, used.length))) }
     : undefined;
   const setAside = new Set([...choice.removed.map((i) => used[i].index), ...repeated]);
-  const at = rowsAt(prepared, main.lat, main.lon).rows;
+  // every input line at the fix (the solution's own rows when they are all of them)
+  const at = main.rows.length === prepared.length ? main.rows : rowsAt(prepared, main.lat, main.lon).rows;
   const maxRange = Math.max(...main.rows.map((r) => r.rangeM));
   const drawnLength = Math.min(MAX_DRAWN_LENGTH_M, Math.max(3 * maxRange, 100));
   const fix: OkFix = {

@@ -13,7 +13,7 @@
 import { costAt, type Plane } from './plane';
 
 const RAYS = 72;
-const BISECTIONS = 24;
+const BISECTIONS = 14;
 
 export type Region = { ring: [number, number][]; open: boolean };
 

@@ -21,7 +21,7 @@
 import { chiSquare2Scale, chiSquareUpper } from './statistics';
 import { fromPlane, normalAt, planeLinearStart, planeSolve, type Plane } from './plane';
 import type { PreparedLine } from './prepare-lines';
-import { rowsAt, solveLines, type Solution } from './solve-lines';
+import { rowsAt, solveLines, type LineRow, type Solution } from './solve-lines';
 import { eigenSym2, invertSym2 } from './sym2';
 import { robustStart } from './global-search';
 import { approxEastNorth } from './geodesy';
@@ -30,6 +30,8 @@ export const EXHAUSTIVE_MAX_LINES = 12;
 /** Probability that clean lines fail the consistency test. */
 export const CONSISTENCY_ALPHA = 0.01;
 
+/** Share of lines flagged at the all-lines optimum up to which the rejection starts from there. */
+const FEW_FLAGGED = 0.01;
 /** Chi-square margin within which another consistent subset is a credible rival. */
 const RIVAL_MARGIN = 4;
 
@@ -119,7 +121,11 @@ export function chooseBySubsets(p: Plane, alpha = CONSISTENCY_ALPHA): RobustChoi
 
 /** Rank-one leave-one-out / add-one figures of every line at a point (chi-square units). */
 function influence(lines: PreparedLine[], keptMask: Uint8Array, lat: number, lon: number): Float64Array | null {
-  const { rows } = rowsAt(lines, lat, lon);
+  return influenceOf(rowsAt(lines, lat, lon).rows, keptMask);
+}
+
+/** The same from rows already linearised at the point. */
+function influenceOf(rows: LineRow[], keptMask: Uint8Array): Float64Array | null {
   let a = 0, b = 0, c = 0;
   for (let i = 0; i < rows.length; i++) {
     if (!keptMask[i]) continue;
@@ -144,16 +150,23 @@ export function chooseByRejection(lines: PreparedLine[], p: Plane, full: Solutio
   const n = lines.length;
   const threshold = chiSquareUpper(CONSISTENCY_ALPHA / n, 1);
   const cap = maxRemovable(n);
-  // start: the robust crossing, lines within the threshold there
-  const start = robustStart(p, threshold);
+  // start: when only a few lines stand out at the all-lines optimum, from there (no extra
+  // geodesics); otherwise from the robust crossing, with the lines within the threshold there
   let keptMask: Uint8Array = new Uint8Array(n).fill(1);
   let current: Solution = full;
   let from = { lat: full.lat, lon: full.lon };
-  if (start) {
-    const st = fromPlane(p, start);
-    const figures = influence(lines, new Uint8Array(n).fill(0), st.lat, st.lon);
-    if (figures) keptMask = limitRemoval(figures, threshold, cap);
-    from = st;
+  const atFull = influenceOf(full.rows, new Uint8Array(n).fill(1));
+  const flagged = atFull ? atFull.filter((v) => v > threshold).length : n;
+  if (atFull && flagged <= Math.max(2, FEW_FLAGGED * n)) {
+    keptMask = limitRemoval(atFull, threshold, cap);
+  } else {
+    const start = robustStart(p, threshold);
+    if (start) {
+      const st = fromPlane(p, start);
+      const figures = influence(lines, new Uint8Array(n).fill(0), st.lat, st.lon);
+      if (figures) keptMask = limitRemoval(figures, threshold, cap);
+      from = st;
+    }
   }
   for (let round = 0; round < 8; round++) {
     const kept = lines.filter((_, i) => keptMask[i]);
