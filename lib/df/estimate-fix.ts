@@ -264,8 +264,8 @@ export function estimateFix(lines: LineOfBearing[], opts?: FixOptions): Fix {
     ? { lat: all.lat, lon: all.lon, ellipse: scaled(ellipseFromNormal(all.normal, confidence) as Ellipse, Math.sqrt(varianceFactor(all.cost, used.length))) }
     : undefined;
   const setAside = new Set([...choice.removed.map((i) => used[i].index), ...repeated]);
-  // every input line at the fix (the solution's own rows when they are all of them)
-  const at = main.rows.length === prepared.length ? main.rows : rowsAt(prepared, main.lat, main.lon).rows;
+  // every input line at the fix itself (the solution's rows were linearised one step before it)
+  const at = rowsAt(prepared, main.lat, main.lon).rows;
   const maxRange = Math.max(...main.rows.map((r) => r.rangeM));
   const drawnLength = Math.min(MAX_DRAWN_LENGTH_M, Math.max(3 * maxRange, 100));
   const fix: OkFix = {

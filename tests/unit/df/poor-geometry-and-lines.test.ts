@@ -6,7 +6,7 @@ import { distanceM, gaussian, mulberry32, sceneLines, type Spot } from './suppor
 // Seeded Monte Carlo, GeographicLib truth (Karney 2013); invented scenes on open sea.
 const SOURCE = { lat: -35.2, lon: -20.4 }; // open South Atlantic
 
-describe('honest region in poor geometry (likelihood-ratio region, Lenth 1981 Technometrics 23(2))', () => {
+describe('honest region in poor geometry (likelihood-ratio region, Lenth 1981 Technometrics 23(2))', { timeout: 30_000 }, () => {
   const cases: [string, Spot[], number][] = [
     ['two lines crossing at 10 degrees, 1 km', [{ fromSourceAzDeg: 0, rangeM: 1000 }, { fromSourceAzDeg: 10, rangeM: 1000 }], 0.92],
     ['two lines crossing at 20 degrees, 2 and 3 km', [{ fromSourceAzDeg: 100, rangeM: 2000 }, { fromSourceAzDeg: 120, rangeM: 3000 }], 0.92],
@@ -16,7 +16,7 @@ describe('honest region in poor geometry (likelihood-ratio region, Lenth 1981 Te
   for (const [name, spots, min] of cases) {
     it(`${name}: region covers the source in >= ${min * 100} % of fixes (the rest refused as near-parallel)`, () => {
       const noise = gaussian(mulberry32(seed++));
-      const trials = 400;
+      const trials = 300;
       let hit = 0, regions = 0, refused = 0;
       for (let t = 0; t < trials; t++) {
         const fix = estimateFix(sceneLines(SOURCE, spots, noise));
@@ -40,7 +40,7 @@ describe('honest region in poor geometry (likelihood-ratio region, Lenth 1981 Te
   });
 });
 
-describe('duplicate lines count once (common practice, no source)', () => {
+describe('duplicate lines count once (common practice, no source)', { timeout: 30_000 }, () => {
   const spots: Spot[] = [{ fromSourceAzDeg: 0, rangeM: 900 }, { fromSourceAzDeg: 110, rangeM: 700 }, { fromSourceAzDeg: 230, rangeM: 600 }];
 
   it('the same line entered twice: same fix and ellipse as once, and a notice naming both', () => {
@@ -66,19 +66,19 @@ describe('duplicate lines count once (common practice, no source)', () => {
   });
 });
 
-describe('one-way lines constrain (Stansfield 1947 likelihood on the unfolded bearing)', () => {
+describe('one-way lines constrain (Stansfield 1947 likelihood on the unfolded bearing)', { timeout: 30_000 }, () => {
   it('noisy one-way lines: the fix is never behind one of them', () => {
     const noise = gaussian(mulberry32(21));
     const rand = mulberry32(22);
     let behind = 0, fixes = 0;
-    for (let t = 0; t < 300; t++) {
+    for (let t = 0; t < 200; t++) {
       const spots: Spot[] = [0, 1, 2].map((i) => ({ fromSourceAzDeg: 120 * i + 60 * rand(), rangeM: 300 + 1500 * rand(), sigmaDeg: 8, oneWay: i < 2 }));
       const fix = estimateFix(sceneLines(SOURCE, spots, noise));
       if (!fix.ok) continue;
       fixes++;
       if (fix.residuals.some((r, i) => spots[i].oneWay && Math.abs(r.offsetDeg) > 90)) behind++;
     }
-    expect(fixes).toBeGreaterThan(250);
+    expect(fixes).toBeGreaterThan(160);
     expect(behind).toBe(0);
   });
 
@@ -98,7 +98,7 @@ describe('one-way lines constrain (Stansfield 1947 likelihood on the unfolded be
   });
 });
 
-describe('sweep sigma for small samples (Student 1908 t factor; Abramowitz & Stegun 26.7.5)', () => {
+describe('sweep sigma for small samples (Student 1908 t factor; Abramowitz & Stegun 26.7.5)', { timeout: 30_000 }, () => {
   function sweep(nullDeg: number, depthDb: number, azimuths: number[], noise: () => number) {
     const b = 1 / (Math.pow(10, depthDb / 10) - 1);
     return azimuths.map((az) => {
@@ -112,7 +112,7 @@ describe('sweep sigma for small samples (Student 1908 t factor; Abramowitz & Ste
     const noise = gaussian(mulberry32(77));
     const rand = mulberry32(78);
     let inside = 0, fits = 0;
-    for (let t = 0; t < 1000; t++) {
+    for (let t = 0; t < 600; t++) {
       const nullDeg = 180 * rand();
       const az = [-45, -30, -15, 0, 15, 30, 45].map((d) => nullDeg + d + 4 * (rand() - 0.5));
       const fit = fitNullSweep(sweep(nullDeg, 25, az, () => noise() * 1.5));
