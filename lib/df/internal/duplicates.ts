@@ -8,8 +8,8 @@ import { DEG, bearingResidualDeg } from './angles';
 import type { Plane } from './plane';
 import type { PreparedLine } from './prepare-lines';
 
-export const SAME_SPOT_M = 5;
-export const SAME_DIRECTION_SIGMAS = 0.25;
+const SAME_SPOT_M = 5;
+const SAME_DIRECTION_SIGMAS = 0.25;
 
 /** Groups of duplicate lines (indices), only groups of two or more. */
 export function duplicateGroups(lines: PreparedLine[], p: Plane): number[][] {

@@ -7,7 +7,7 @@
 import { costAt, planeCrossings, planeLinearStart, planeSolve, subPlane, truncatedCostAt, type Plane } from './plane';
 
 /** Pairwise crossings tried as starts, best crossing angle first. */
-export const MAX_STARTS = 50;
+const MAX_STARTS = 50;
 /** Up to this many lines every start is iterated; above, only the few best-scoring starts. */
 const ITERATE_ALL_MAX_LINES = 60;
 const ITERATED_STARTS_LARGE = 3;
@@ -15,7 +15,7 @@ const ITERATED_STARTS_LARGE = 3;
 const SCORE_LINES = 200;
 
 /** Candidate start points in plane metres (linear start first). */
-export function startCandidates(p: Plane, use?: ArrayLike<number>): [number, number][] {
+function startCandidates(p: Plane, use?: ArrayLike<number>): [number, number][] {
   const out: [number, number][] = [];
   const linear = planeLinearStart(p, use);
   if (linear) out.push(linear);

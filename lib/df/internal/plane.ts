@@ -53,7 +53,7 @@ export function fromPlane(p: Plane, x: [number, number]): { lat: number; lon: nu
 }
 
 /** Residual of line i at x in radians (folded for two-way lines). */
-export function residualAt(p: Plane, i: number, x: [number, number]): number {
+function residualAt(p: Plane, i: number, x: [number, number]): number {
   const az = Math.atan2(x[0] - p.e[i], x[1] - p.n[i]) / DEG;
   return bearingResidualDeg(az, p.theta[i] / DEG, p.oneWay[i] === 1) * DEG;
 }

@@ -50,7 +50,7 @@ export type RobustChoice = {
 };
 
 /** Most lines that may be set aside. */
-export function maxRemovable(n: number): number {
+function maxRemovable(n: number): number {
   return Math.max(0, Math.min(Math.floor(n / 3), n - 3));
 }
 
