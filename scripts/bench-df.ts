@@ -93,6 +93,9 @@ for (const n of [100, 1000, 4000]) {
 }
 const growth = rows[2].blunder / rows[1].blunder;
 console.log(`  growth 1,000 -> 4,000 lines with blunders: x${growth.toFixed(2)} (linear would be x4)`);
+const huge = scene(10_000, 23, 0.05);
+const hugeMs = medianMs(3, () => estimateFix(huge));
+console.log(`  10,000 lines with 5 % blunders: ${hugeMs.toFixed(0)} ms (the leave-one-out re-solve loop it replaces took about 24 s)`);
 
 // Small sets: exhaustive leave-k-out subsets
 const twelve = scene(12, 5, 0);

@@ -4,6 +4,7 @@
  * linear least-squares point and from up to MAX_STARTS pairwise crossings, the best crossing
  * angles first, and keeps the lowest cost.
  */
+import { chiSquareUpper } from './statistics';
 import { costAt, planeCrossings, planeLinearStart, planeSolve, subPlane, truncatedCostAt, type Plane } from './plane';
 
 /** Pairwise crossings tried as starts, best crossing angle first. */
@@ -34,12 +35,18 @@ function startCandidates(p: Plane, use?: ArrayLike<number>): [number, number][] 
  */
 export function planeOptimum(p: Plane, use?: ArrayLike<number>): { x: [number, number]; cost: number } | null {
   const m = use ? use.length : p.w.length;
-  let starts = startCandidates(p, use);
   let q = p;
   let qUse = use;
   if (m > ITERATE_ALL_MAX_LINES) {
     q = subPlane(p, spread(use ?? Array.from({ length: m }, (_, i) => i), SCORE_LINES));
     qUse = undefined;
+    // many lines that agree: the linear start is already in the right valley
+    const linear = planeLinearStart(q);
+    const quick = linear && planeSolve(q, linear);
+    if (quick && quick.cost <= chiSquareUpper(0.01, q.w.length - 2)) return quick;
+  }
+  let starts = startCandidates(p, use);
+  if (m > ITERATE_ALL_MAX_LINES) {
     const scored = starts.map((x) => ({ x, c: costAt(q, x) })).sort((a, b) => a.c - b.c);
     starts = scored.slice(0, ITERATED_STARTS_LARGE).map((s) => s.x);
   }
