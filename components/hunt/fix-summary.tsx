@@ -42,15 +42,15 @@ export function FixSummary({ fix, bearings }: { fix?: FixView; bearings?: Bearin
               </p>
               {f.outlierIds.length > 0 && (
                 <div>
-                  <p className="font-semibold">Outliers (they disagree with the rest):</p>
+                  <p className="font-semibold">Set aside (they disagree with the rest):</p>
                   <ul className="list-disc pl-5">
                     {f.outlierIds.map((id) => (
                       <li key={id}>{byId.has(id) ? bearingName(byId.get(id)!) : `line ${id}`}</li>
                     ))}
                   </ul>
-                  {f.withoutOutliers && (
+                  {f.allLines && (
                     <p>
-                      Without the outliers: semi-major {metres(f.withoutOutliers.ellipse.semiMajorM)} at {formatLatLon(f.withoutOutliers.lat, f.withoutOutliers.lon)}.
+                      With every line: semi-major {metres(f.allLines.ellipse.semiMajorM)} at {formatLatLon(f.allLines.lat, f.allLines.lon)}.
                     </p>
                   )}
                 </div>

@@ -5,7 +5,7 @@ import { getBearing, listBearings, type BearingWithAuthor } from '@/db/bearings'
 import { fixTrail, insertFixSnapshot, latestFixSnapshot } from '@/db/fixes';
 import { loopCircumferences } from '@/db/users';
 import { getClubSettings } from '@/db/settings';
-import { declinationInfo, estimateFix, sanityWarnings, suggestNextSpots, type Fix, type LineOfBearing } from '@/lib/df';
+import { declinationInfo, estimateFix, sanityWarnings, suggestNextSpots, type Fix, type LineOfBearing, type NextSpotOptions } from '@/lib/df';
 import { notFound } from '@/lib/errors';
 import { toBearingView } from './to-view';
 import type { BearingView, FixView } from './views';
@@ -43,12 +43,28 @@ async function setupWarnings(q: Knex, bearings: BearingWithAuthor[], fix: Fix | 
   return [...out];
 }
 
+/**
+ * What suggestNextSpots knows about the hunt: the bearings' frequency (median of the active lines
+ * that have one; keeps spots out of the near field) and where the hunter last stood (the latest
+ * active bearing), so spots within a walk are preferred.
+ */
+export function nextSpotOptions(bearings: Pick<BearingWithAuthor, 'lat' | 'lon' | 'excluded' | 'frequencyKhz' | 'takenAt'>[]): NextSpotOptions {
+  const active = bearings.filter((b) => !b.excluded);
+  const khz = active.map((b) => b.frequencyKhz).filter((f): f is number => typeof f === 'number' && f > 0).sort((a, b) => a - b);
+  const latest = active.reduce<(typeof active)[number] | undefined>((a, b) => (!a || new Date(b.takenAt) > new Date(a.takenAt) ? b : a), undefined);
+  return {
+    count: 3,
+    ...(khz.length ? { frequencyHz: khz[khz.length >> 1] * 1000 } : {}),
+    ...(latest ? { from: { lat: latest.lat, lon: latest.lon } } : {}),
+  };
+}
+
 /** The current fix, its convergence trail, where to stand next and what to watch out for. */
 export async function fixView(caseId: string, q: Knex = db): Promise<FixView> {
   const [latest, trail, bearings, settings] = await Promise.all([latestFixSnapshot(caseId, q), fixTrail(caseId, q), listBearings(caseId, q), getClubSettings(q)]);
   const fix = latest?.result;
   const lines = toLines(bearings);
-  const nextSpots = lines.length > 0 ? suggestNextSpots(lines, { count: 3 }) : [];
+  const nextSpots = lines.length > 0 ? suggestNextSpots(lines, nextSpotOptions(bearings)) : [];
   const warnings = [...(fix?.ok ? fix.warnings : []), ...(await setupWarnings(q, bearings, fix))];
   return {
     current: latest ? { id: String(latest.id), createdAt: new Date(latest.createdAt).toISOString(), cause: latest.cause, lineCount: latest.lineCount, fix: latest.result } : null,
