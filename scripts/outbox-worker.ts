@@ -4,6 +4,7 @@
  * and the evidence jobs (audio signatures, photo thumbnails, clean-up of unfinished uploads).
  *   node --import tsx scripts/outbox-worker.ts          run for ever (Ctrl-C / SIGTERM stops cleanly)
  *   node --import tsx scripts/outbox-worker.ts --drain  exit once no e-mail is due or held by a lease
+ *   ... --drain=SECONDS                                 and give up after SECONDS (default 120), exit code 1
  * Env: OUTBOX_POLL_MS (2000: the queue's poll for delayed jobs and the rescue of rows a dead worker
  * held), OUTBOX_BATCH_SIZE (10: jobs in flight at once), OUTBOX_LEASE_MS (60000),
  * OUTBOX_BACKOFF_BASE_MS (5000), OUTBOX_MAX_ATTEMPTS (8), plus the app's DB_*, SMTP_* and S3_* settings.
@@ -18,7 +19,10 @@ import { evidenceTasks } from '../lib/evidence/tasks';
 import { taskList } from '../lib/jobs/tasks';
 import { newWorkerId, rescueOutbox } from '../lib/notices/outbox';
 
-const drain = process.argv.includes('--drain');
+const drainArg = process.argv.find((a) => a === '--drain' || a.startsWith('--drain='));
+const drain = drainArg !== undefined;
+/** A drain is a wait like any other: bounded. */
+const drainDeadline = Date.now() + 1000 * (Number(drainArg?.split('=')[1]) || 120);
 const workerId = newWorkerId();
 let stopping = false;
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -53,6 +57,11 @@ async function main() {
     } catch (err) {
       // Database down or the like: say so and try again after a pause; nothing is lost.
       console.error(`quietfix outbox: ${(err as Error).message}`);
+    }
+    if (drain && Date.now() > drainDeadline) {
+      console.error('quietfix outbox: drain gave up: mail is still due or leased after the time allowed.');
+      process.exitCode = 1;
+      break;
     }
     await sleep(OUTBOX_POLL_MS);
   }

@@ -2,13 +2,14 @@ import type { Knex } from 'knex';
 import { randomUUID } from 'node:crypto';
 import { fileTypeFromBuffer } from 'file-type';
 import type { z } from 'zod';
-import { appendEvent, lockCase } from '@/db/cases';
+import { appendEvent } from '@/db/cases';
 import { deleteFileRow, insertFile, lockFile, markFileReady, type AudioAnalysis, type CaseFile } from '@/db/files';
 import { addJob } from '@/db/jobs';
 import { getClubSettings } from '@/db/settings';
 import type { User } from '@/db/types';
 import { AppError, forbidden, notFound, payloadTooLarge, unsupportedMediaType } from '@/lib/errors';
-import { caseAccess, fileAccess } from '@/lib/hunt/access';
+import { fileAccess } from '@/lib/hunt/access';
+import { lockVisibleCase } from '@/lib/hunt/case-detail';
 import { AudioRefused, inspectWav } from '@/lib/audio/wav';
 import { JOB } from '@/lib/jobs/names';
 import { deleteObjects, objectSize, presignPut, readObject } from '@/lib/storage/s3';
@@ -26,11 +27,9 @@ const MB = 1_000_000;
 export type UploadTicket = { fileId: string; uploadUrl: string; method: 'PUT'; headers: Record<string, string>; maxBytes: number };
 
 export async function createUpload(trx: Knex.Transaction, me: User, caseId: string, input: z.output<typeof uploadRequestSchema>): Promise<UploadTicket> {
-  const row = await lockCase(trx, caseId);
-  const access = row && caseAccess(me, row);
-  if (!row || !access?.view) throw notFound('No such case.');
+  const { access } = await lockVisibleCase(trx, me, caseId);
   if (!fileAccess(me, access).add) throw forbidden('Files can be added by those who may add to this case.');
-  const maxBytes = (await getClubSettings()).uploadMaxMb * MB;
+  const maxBytes = (await getClubSettings(trx)).uploadMaxMb * MB;
   if (input.size > maxBytes) throw payloadTooLarge(`The file is ${(input.size / MB).toFixed(1)} MB; the club's limit is ${maxBytes / MB} MB.`);
   if (!kindOfDeclared(input.contentType)) throw unsupportedMediaType(`"${input.contentType}" files cannot be attached: recordings (WAV, MP3, OGG/Opus, M4A), photos (JPEG, PNG, WebP) or PDFs only.`);
   const fileId = randomUUID();
@@ -55,15 +54,13 @@ async function refuse(trx: Knex.Transaction, f: CaseFile, err: AppError): Promis
  * not thrown, so that the row's deletion commits; the route then answers with it.
  */
 export async function completeUpload(trx: Knex.Transaction, me: User, caseId: string, fileId: string): Promise<CaseFile | Refused> {
-  const row = await lockCase(trx, caseId);
-  const access = row && caseAccess(me, row);
-  if (!row || !access?.view) throw notFound('No such case.');
+  await lockVisibleCase(trx, me, caseId);
   const f = await lockFile(trx, caseId, fileId);
   if (!f || f.uploadedBy !== me.id) throw notFound('No such upload.');
   if (f.status === 'ready') return f;
   const size = await objectSize(f.objectKey);
   if (size === null) throw new AppError(409, 'The file has not arrived yet: send it first, then complete.');
-  const maxBytes = (await getClubSettings()).uploadMaxMb * MB;
+  const maxBytes = (await getClubSettings(trx)).uploadMaxMb * MB;
   if (size > maxBytes) return refuse(trx, f, payloadTooLarge(`The stored file is ${(size / MB).toFixed(1)} MB; the club's limit is ${maxBytes / MB} MB. It was deleted.`));
   if (size !== f.size) return refuse(trx, f, new AppError(400, `The stored file is ${size} bytes, not the ${f.size} announced. It was deleted; try again.`));
   const head = await readObject(f.objectKey, Math.min(size, SNIFF_BYTES));
@@ -113,9 +110,7 @@ function looksLikeText(b: Uint8Array): boolean {
 
 /** Deletes a file (uploader or the committee): the row in the transaction, the objects after. */
 export async function deleteFile(trx: Knex.Transaction, me: User, caseId: string, fileId: string): Promise<string[]> {
-  const row = await lockCase(trx, caseId);
-  const access = row && caseAccess(me, row);
-  if (!row || !access?.view) throw notFound('No such case.');
+  const { access } = await lockVisibleCase(trx, me, caseId);
   const f = await lockFile(trx, caseId, fileId);
   if (!f) throw notFound('No such file.');
   if (!fileAccess(me, access, f).delete) throw forbidden('A file can be deleted by whoever attached it or by the committee.');
