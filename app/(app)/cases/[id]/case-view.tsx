@@ -6,6 +6,7 @@ import { fetchJson } from '@/lib/api/client';
 import type { CaseDetail } from '@/lib/hunt/views';
 import { useCaseEvents, useHuntData } from '@/components/hunt/use-hunt-data';
 import { NoticeBox } from '@/components/ui/notice-box';
+import { EvidenceCard } from '@/components/evidence/evidence-card';
 import { AssignmentCard } from './_components/assignment-card';
 import { CaseDetails } from './_components/case-details';
 import { CaseHeader } from './_components/case-header';
@@ -64,6 +65,7 @@ export function CaseView({ caseId, justFiled }: { caseId: string; justFiled: boo
           )}
           <CaseDetails c={c} />
           <AssignmentCard c={c} refresh={refreshAll} />
+          <EvidenceCard caseId={c.id} canAdd={c.can.comment} />
           <CaseTimeline events={events.data} error={events.error}>
             {c.can.comment && <CommentBox caseId={c.id} canConfirm={c.can.confirmPremises} onPosted={() => events.mutate()} />}
           </CaseTimeline>
