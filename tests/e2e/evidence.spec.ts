@@ -56,6 +56,6 @@ test('a hunter uploads a WAV with a moving progress bar and later sees its signa
   console.log(`[evidence e2e] 1.3 MB WAV at 400 kB/s upload: attached ${uploadMs} ms after choosing; signature shown ${Date.now() - t0} ms after choosing`);
   // Leave the demo case as it was.
   const files = (await (await page.request.get(`/api/cases/${caseId}/files`)).json()).items as { id: string; name: string }[];
-  for (const f of files.filter((x) => x.name === 'hum by the lane.wav')) await page.request.delete(`/api/cases/${caseId}/files/${f.id}`);
+  for (const f of files.filter((x) => x.name === 'hum by the lane.wav')) await page.request.delete(`/api/cases/${caseId}/files/${f.id}`, { headers: { origin: new URL(page.url()).origin } });
   await context.close();
 });
