@@ -24,6 +24,8 @@ export type ClubSettings = {
   maxPositionAccuracyM: number;
   /** largest evidence file, megabytes (10^6 bytes) */
   uploadMaxMb: number;
+  /** ITU-R P.372 man-made noise category the expected floor uses */
+  noiseEnvironment: 'city' | 'residential' | 'rural' | 'quiet-rural';
 };
 
 export type Profile = {

@@ -7,6 +7,7 @@ import type { CaseDetail } from '@/lib/hunt/views';
 import { useCaseEvents, useHuntData } from '@/components/hunt/use-hunt-data';
 import { NoticeBox } from '@/components/ui/notice-box';
 import { EvidenceCard } from '@/components/evidence/evidence-card';
+import { LevelLogCard } from '@/components/levels/level-log-card';
 import { AssignmentCard } from './_components/assignment-card';
 import { CaseDetails } from './_components/case-details';
 import { CaseHeader } from './_components/case-header';
@@ -73,6 +74,9 @@ export function CaseView({ caseId, justFiled }: { caseId: string; justFiled: boo
         {c.can.seeHunt && (
           <div className="min-w-0">
             <HuntPanel c={c} bearings={bearings} fix={fix} error={error} refresh={refreshAll} />
+            <div className="mt-4">
+              <LevelLogCard caseId={c.id} />
+            </div>
           </div>
         )}
       </div>
