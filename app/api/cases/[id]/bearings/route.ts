@@ -21,7 +21,7 @@ export const GET = route<{ id: string }>(async (_req, ctx) => {
   return json({ items, total: items.length, page: 1, pageSize: items.length });
 });
 
-/** Adds a bearing; the fix is recomputed and a snapshot kept, in the same transaction. */
+/** Adds a bearing; the fix is recomputed and a snapshot kept, in the same transaction. A repeat of the same clientId answers 200 with the stored bearing. */
 export const POST = route<{ id: string }>(async (req, ctx) => {
   const { id } = caseIdSchema.parse(await ctx.params);
   const me = await requireUser('admin', 'coordinator', 'hunter');
@@ -29,5 +29,5 @@ export const POST = route<{ id: string }>(async (req, ctx) => {
   const input = bearingInputSchema.parse(await readJson(req));
   const settings = await getClubSettings();
   const saved = await inTransaction(async (trx) => addBearing(trx, me, (await lockCase(trx, id))!, settings, input));
-  return json(await bearingWithFix(id, saved.id, settings), 201);
+  return json(await bearingWithFix(id, saved.id, settings), saved.repeat ? 200 : 201);
 });
