@@ -58,7 +58,7 @@ export default async function SignedInLayout({ children }: { children: React.Rea
       </header>
       <main className="mx-auto w-full max-w-6xl flex-1 px-3 py-4 sm:px-4">
         {/* Tiles are configured at run time: the server reads them and hands them to the maps. */}
-        <MapSettingsProvider settings={{ tileUrl: env.TILE_URL, tileAttribution: env.TILE_ATTRIBUTION, places: mayLoadPlaces(user.role) }}>{children}</MapSettingsProvider>
+        <MapSettingsProvider settings={{ tileUrl: env.TILE_URL, tileAttribution: env.TILE_ATTRIBUTION, places: mayLoadPlaces(user.role), tilePrefetchMax: env.TILE_PREFETCH_MAX }}>{children}</MapSettingsProvider>
       </main>
     </div>
   );

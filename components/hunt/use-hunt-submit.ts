@@ -2,6 +2,7 @@
 
 import { useState } from 'react';
 import { callApi } from '@/lib/api/client';
+import { browserOffline, useFieldQueueHold } from '@/components/field/field-queue-context';
 
 export type SubmitState = {
   pending: boolean;
@@ -15,16 +16,28 @@ export type SubmitState = {
  * Sends a bearing or sweep and reads the answer the same way for both forms:
  * 400 issues go to their fields (unknown paths to the general message), 422 accuracy-unconfirmed
  * asks to "use it anyway" and resends with accuracyConfirmed, anything else is a plain message.
+ * Inside the field screen each send carries a new clientId, and without a connection the item goes
+ * to the phone's offline queue instead (`onSaved(null)`): nothing typed in the field is lost.
  * @param setFieldError puts a server message on a form field; returns false for a path the form lacks
  */
-export function useHuntSubmit<TResult>(url: string, onSaved: (r: TResult) => void, setFieldError: (path: string, message: string) => boolean) {
+export function useHuntSubmit<TResult>(url: string, onSaved: (r: TResult | null) => void, setFieldError: (path: string, message: string) => boolean) {
+  const hold = useFieldQueueHold();
   const [state, setState] = useState<SubmitState>({ pending: false, error: null, confirm: null });
   const [lastBody, setLastBody] = useState<Record<string, unknown> | null>(null);
 
-  const send = async (body: Record<string, unknown>) => {
+  const send = async (typed: Record<string, unknown>) => {
+    const body = hold ? { ...typed, clientId: typeof typed.clientId === 'string' ? typed.clientId : crypto.randomUUID() } : typed;
     setLastBody(body);
     setState({ pending: true, error: null, confirm: null });
+    const queue = async () => {
+      await hold!(url, body as typeof body & { clientId: string });
+      setState({ pending: false, error: null, confirm: null });
+      setLastBody(null);
+      onSaved(null);
+    };
+    if (hold && browserOffline()) return queue();
     const r = await callApi<TResult>(url, { method: 'POST', body });
+    if (hold && !r.ok && r.status === 0) return queue();
     if (r.ok) {
       setState({ pending: false, error: null, confirm: null });
       setLastBody(null);

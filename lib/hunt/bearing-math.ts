@@ -2,7 +2,7 @@
  * The pure part of storing a bearing, shared by the server (lib/hunt/bearings.ts) and the phone
  * (the offline fix from queued lines): its 1-sigma and its true azimuth. No db, no next/*.
  */
-import { declinationInfo, NULL_SIGMA_PRESETS_DEG, nullWidthToSigmaDeg } from '@/lib/df';
+import { declinationInfo, NULL_SIGMA_PRESETS_DEG, nullWidthToSigmaDeg, type LineOfBearing } from '@/lib/df';
 
 type SigmaInput = { sigmaDeg?: number; nullWidthDeg?: number; quality?: 'sharp' | 'fair' | 'broad' };
 
@@ -23,3 +23,10 @@ export function trueAzimuth(enteredDeg: number, reference: 'true' | 'magnetic', 
   return { declinationDeg: round(declinationDeg, 3), azimuthTrueDeg: round(norm360(enteredDeg + declinationDeg)) };
 }
 
+
+/** The lines lib/df works on: active bearings, true azimuths, ids = bearing ids. */
+export function toLines(bearings: { id: string; lat: number; lon: number; azimuthTrueDeg: number; sigmaDeg: number; oneWay: boolean; excluded: boolean }[]): LineOfBearing[] {
+  return bearings
+    .filter((b) => !b.excluded)
+    .map((b) => ({ id: b.id, lat: b.lat, lon: b.lon, azimuthDeg: b.azimuthTrueDeg, sigmaDeg: b.sigmaDeg, oneWay: b.oneWay }));
+}

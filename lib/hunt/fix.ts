@@ -5,16 +5,10 @@ import { getBearing, listBearings, type BearingWithAuthor } from '@/db/bearings'
 import { fixTrail, insertFixSnapshot, latestFixSnapshot } from '@/db/fixes';
 import { loopCircumferences } from '@/db/users';
 import type { ClubSettings } from '@/db/types';
-import { estimateFix, sanityWarnings, suggestNextSpots, type Fix, type LineOfBearing } from '@/lib/df';
+import { estimateFix, sanityWarnings, suggestNextSpots, type Fix } from '@/lib/df';
 import { toBearingView } from './to-view';
+import { toLines } from './bearing-math';
 import type { BearingView, FixView } from './views';
-
-/** The lines lib/df works on: active bearings, true azimuths, ids = bearing ids. */
-export function toLines(bearings: Pick<BearingWithAuthor, 'id' | 'lat' | 'lon' | 'azimuthTrueDeg' | 'sigmaDeg' | 'oneWay' | 'excluded'>[]): LineOfBearing[] {
-  return bearings
-    .filter((b) => !b.excluded)
-    .map((b) => ({ id: b.id, lat: b.lat, lon: b.lon, azimuthDeg: b.azimuthTrueDeg, sigmaDeg: b.sigmaDeg, oneWay: b.oneWay }));
-}
 
 /** Recomputes the case's fix from its active bearings and keeps a snapshot (the history of the estimate). */
 export async function recomputeFix(trx: Knex.Transaction, caseId: string, cause: string): Promise<Fix> {
