@@ -138,10 +138,13 @@ test('offline: the field screen reopens from the service worker, typed items wai
   await expect(page.getByTestId('case-map').locator('.qf-bearing')).toHaveCount(2);
 
   // 3. A bearing and two level readings, typed offline.
+  await page.getByRole('button', { name: 'Walk', exact: true }).click();
+  await expect(page.getByTestId('walk-position')).toContainText('±6 m');
+  await page.getByRole('button', { name: 'Bearings', exact: true }).click();
   await page.getByRole('button', { name: 'Add bearing' }).click();
   const form = page.getByRole('form', { name: 'Add a bearing' });
   await form.getByRole('button', { name: 'Use my location' }).click();
-  await expect(form.getByTestId('position-summary')).toContainText('device');
+  await expect(form.getByTestId('position-summary')).toContainText('device', { timeout: 30_000 });
   await form.getByLabel('Azimuth of the null (degrees)').fill(third.azimuthDeg.toFixed(1));
   await form.getByText('True', { exact: true }).click();
   await form.getByText('Sharp', { exact: true }).click();
@@ -190,6 +193,7 @@ test('offline: the field screen reopens from the service worker, typed items wai
 
   // 5. A refused item: typed offline, the case is closed meanwhile, the server's reason stays on screen.
   await context.setOffline(true);
+  await page.getByRole('button', { name: 'Walk', exact: true }).click();
   await page.getByRole('group', { name: 'Log the level in S-units' }).getByRole('button', { name: 'S5', exact: true }).click();
   await expect(page.getByTestId('queue-count')).toHaveText('1 waiting to send');
   const now = (await api(`/api/cases/${caseId}`, { session: coordinator })).json;

@@ -53,7 +53,8 @@ export function FieldScreen({ caseId }: { caseId: string }) {
     void trailQ.refresh();
   });
   const trailQ = useLevelTrail(caseId, queue.items, caseDetail !== undefined);
-  const phone = usePhonePosition(seeHunt);
+  // Paused while a form is open: the form reads the position itself (one request at a time to the phone's GPS).
+  const phone = usePhonePosition(seeHunt && sheet === null);
   const lastQueued = useRef(false);
   const hold = async (url: string, body: Record<string, unknown> & { clientId: string }) => {
     lastQueued.current = true;
