@@ -16,5 +16,3 @@ export function useFieldQueueHold(): FieldQueueHold | null {
   return useContext(FieldQueueContext);
 }
 
-/** Whether the browser says it is offline (a request would fail at once). */
-export const browserOffline = () => typeof navigator !== 'undefined' && navigator.onLine === false;

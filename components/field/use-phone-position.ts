@@ -1,7 +1,7 @@
 'use client';
 
 import { useEffect, useState } from 'react';
-import { GEO_ERRORS } from '@/components/hunt/position-field';
+import { GEO_ERRORS } from '@/components/ui/use-geolocation';
 
 export type PhonePosition = { lat: number; lon: number; accuracyM: number; at: number };
 

@@ -2,9 +2,8 @@
 
 import { useState } from 'react';
 import { NoticeBox } from '@/components/ui/notice-box';
-import { callApi } from '@/lib/api/client';
+import { browserOffline, callApi } from '@/lib/api/client';
 import { readingInputSchema } from '@/lib/validation/readings';
-import { browserOffline } from './field-queue-context';
 import { levelLabel, S_BUTTONS } from './level-words';
 import type { PhonePosition } from './use-phone-position';
 import type { FieldQueue } from './use-field-queue';

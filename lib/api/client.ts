@@ -33,3 +33,6 @@ export async function fetchJson<T>(url: string): Promise<T> {
   if (!r.ok) throw new Error(r.error);
   return r.data;
 }
+
+/** Whether the browser says it is offline (a request would fail at once). */
+export const browserOffline = () => typeof navigator !== 'undefined' && navigator.onLine === false;

@@ -5,8 +5,7 @@ import { appendEvent } from '@/db/cases';
 import { getProfile } from '@/db/users';
 import type { CaseRow, ClubSettings, User } from '@/db/types';
 import { fitNullSweep, sUnitsToDbm } from '@/lib/df';
-import { norm360, resolveSigmaDeg, round, trueAzimuth } from './bearing-math';
-
+import { foldDeg, resolveSigmaDeg, round, trueAzimuth } from './bearing-math';
 import { AppError, conflict, forbidden } from '@/lib/errors';
 import type { bearingInputSchema, bearingPatchSchema, sweepInputSchema } from '@/lib/validation/bearings';
 import { caseAccess } from './access';
@@ -17,6 +16,8 @@ import type { SweepRecord } from './views';
 type BearingInput = z.output<typeof bearingInputSchema>;
 type BearingPatch = z.output<typeof bearingPatchSchema>;
 type SweepInput = z.output<typeof sweepInputSchema>;
+
+const pickStored = (a: ReturnType<typeof trueAzimuth>) => ({ declinationDeg: a.declinationDeg, azimuthTrueDeg: a.azimuthTrueDeg });
 
 function assertAccuracy(accuracyM: number | undefined | null, confirmed: boolean, settings: Pick<ClubSettings, 'maxPositionAccuracyM'>) {
   if (accuracyM != null && accuracyM > settings.maxPositionAccuracyM && !confirmed) {
@@ -53,9 +54,10 @@ async function saveNewBearing(
     lon: p.lon,
     positionSource: p.positionSource,
     positionAccuracyM: p.positionAccuracyM ?? null,
-    azimuthEnteredDeg: norm360(line.enteredDeg),
+    azimuthEnteredDeg: foldDeg(line.enteredDeg),
     reference: line.reference,
-    ...az,
+    declinationDeg: az.declinationDeg,
+    azimuthTrueDeg: az.azimuthTrueDeg,
     sigmaDeg: line.sigmaDeg,
     nullWidthDeg: line.nullWidthDeg ?? null,
     frequencyKhz: p.frequencyKhz ?? null,
@@ -164,7 +166,7 @@ export async function editBearing(
     ...rest,
     takenAt,
     excluded,
-    ...(geometryChanged ? { azimuthEnteredDeg: norm360(entered), ...trueAzimuth(entered, reference, lat, lon, new Date(takenAt)) } : {}),
+    ...(geometryChanged ? { azimuthEnteredDeg: foldDeg(entered), ...pickStored(trueAzimuth(entered, reference, lat, lon, new Date(takenAt))) } : {}),
     ...(sigmaChanged ? { sigmaDeg: resolveSigmaDeg({ quality, sigmaDeg, nullWidthDeg }), nullWidthDeg: nullWidthDeg ?? null } : {}),
   };
   await reviseBearing(trx, before, user.id, fields);

@@ -4,10 +4,11 @@ import { db } from '@/db';
 import { getBearing, listBearings, type BearingWithAuthor } from '@/db/bearings';
 import { fixTrail, insertFixSnapshot, latestFixSnapshot } from '@/db/fixes';
 import { loopCircumferences } from '@/db/users';
-import type { ClubSettings } from '@/db/types';
-import { estimateFix, sanityWarnings, suggestNextSpots, type Fix } from '@/lib/df';
+import { getClubSettings } from '@/db/settings';
+import { declinationInfo, estimateFix, sanityWarnings, suggestNextSpots, type Fix } from '@/lib/df';
+import { notFound } from '@/lib/errors';
 import { toBearingView } from './to-view';
-import { toLines } from './bearing-math';
+import { nextSpotOptions, toLines } from './bearing-math';
 import type { BearingView, FixView } from './views';
 
 /** Recomputes the case's fix from its active bearings and keeps a snapshot (the history of the estimate). */
@@ -18,12 +19,16 @@ export async function recomputeFix(trx: Knex.Transaction, caseId: string, cause:
   return fix;
 }
 
-/** Plain-language warnings about each active line's setup: loop size for its frequency, near field. */
-async function setupWarnings(bearings: BearingWithAuthor[], fix: Fix | undefined): Promise<string[]> {
-  const loops = await loopCircumferences([...new Set(bearings.map((b) => b.authorId).filter((x): x is string => !!x))]);
+/** Plain-language warnings about each active line's setup: the magnetic model's validity, loop size for its frequency, near field. */
+async function setupWarnings(q: Knex, bearings: BearingWithAuthor[], fix: Fix | undefined): Promise<string[]> {
+  const loops = await loopCircumferences([...new Set(bearings.map((b) => b.authorId).filter((x): x is string => !!x))], q);
   const out = new Set<string>();
   for (const b of bearings) {
-    if (b.excluded || !b.frequencyKhz) continue;
+    if (b.excluded) continue;
+    // The magnetic model's own caution (outside its validity window), for each magnetic line it converted.
+    const model = b.reference === 'magnetic' ? declinationInfo(b.lat, b.lon, new Date(b.takenAt)).warning : undefined;
+    if (model) out.add(`${b.authorName ?? 'A hunter'}'s line at ${b.azimuthTrueDeg.toFixed(1)}°: ${model}`);
+    if (!b.frequencyKhz) continue;
     const distanceM = fix?.ok ? distance([b.lon, b.lat], [fix.lon, fix.lat], { units: 'meters' }) : undefined;
     for (const w of sanityWarnings({ frequencyHz: b.frequencyKhz * 1000, loopCircumferenceM: b.authorId ? loops.get(b.authorId) : undefined, distanceM })) {
       out.add(`${b.authorName ?? 'A hunter'}'s line at ${b.azimuthTrueDeg.toFixed(1)}°: ${w}`);
@@ -33,12 +38,12 @@ async function setupWarnings(bearings: BearingWithAuthor[], fix: Fix | undefined
 }
 
 /** The current fix, its convergence trail, where to stand next and what to watch out for. */
-export async function fixView(caseId: string, settings: Pick<ClubSettings, 'locateThresholdM'>, q: Knex = db): Promise<FixView> {
-  const [latest, trail, bearings] = await Promise.all([latestFixSnapshot(caseId, q), fixTrail(caseId, q), listBearings(caseId, q)]);
+export async function fixView(caseId: string, q: Knex = db): Promise<FixView> {
+  const [latest, trail, bearings, settings] = await Promise.all([latestFixSnapshot(caseId, q), fixTrail(caseId, q), listBearings(caseId, q), getClubSettings(q)]);
   const fix = latest?.result;
   const lines = toLines(bearings);
-  const nextSpots = lines.length > 0 ? suggestNextSpots(lines, { count: 3 }) : [];
-  const warnings = [...(fix?.ok ? fix.warnings : []), ...(await setupWarnings(bearings, fix))];
+  const nextSpots = lines.length > 0 ? suggestNextSpots(lines, nextSpotOptions(bearings)) : [];
+  const warnings = [...(fix?.ok ? fix.warnings : []), ...(await setupWarnings(q, bearings, fix))];
   return {
     current: latest ? { id: String(latest.id), createdAt: new Date(latest.createdAt).toISOString(), cause: latest.cause, lineCount: latest.lineCount, fix: latest.result } : null,
     trail: trail.map((t) => ({
@@ -63,7 +68,8 @@ export function isLocatable(fix: Fix | undefined, thresholdM: number): boolean {
 }
 
 /** What every bearing write answers with: the bearing as saved and the case's fix after it. */
-export async function bearingWithFix(caseId: string, bearingId: string, settings: Pick<ClubSettings, 'locateThresholdM'>): Promise<{ bearing: BearingView; fix: FixView }> {
-  const [b, fix] = await Promise.all([getBearing(caseId, bearingId), fixView(caseId, settings)]);
-  return { bearing: toBearingView(b!), fix };
+export async function bearingWithFix(caseId: string, bearingId: string): Promise<{ bearing: BearingView; fix: FixView }> {
+  const [b, fix] = await Promise.all([getBearing(caseId, bearingId), fixView(caseId)]);
+  if (!b) throw notFound('No such bearing on this case.');
+  return { bearing: toBearingView(b), fix };
 }

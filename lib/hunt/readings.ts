@@ -73,7 +73,7 @@ export function sameItemOrConflict<T extends { caseId: string; authorId: string 
 /**
  * Stores one level reading of the walk. A repeat of an item already stored (same clientId) answers
  * the stored row and stores nothing (`repeat: true`), so a retried send never makes a second one.
- * Call with the case row locked (`lockCase`), which also serialises retries racing each other.
+ * Call with the case row locked (`lockVisibleCase`), which also serialises retries racing each other.
  */
 export async function addLevelReading(trx: Knex.Transaction, user: User, row: CaseRow, input: ReadingInput): Promise<{ reading: LevelReadingView; repeat: boolean }> {
   const before = sameItemOrConflict(await findLevelReadingByClientId(input.clientId, trx), user, row.id);

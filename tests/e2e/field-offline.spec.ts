@@ -124,6 +124,8 @@ test('offline: the field screen reopens from the service worker, typed items wai
   await page.keyboard.press('Enter');
   await expect(page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Cases' })).toBeVisible();
   await page.keyboard.press('Enter');
+  // Next spots: a list under the fix, each with its distance from where the phone stands.
+  await expect(page.getByTestId('spot-distance').first()).toContainText('from you');
   const precache = await precacheBytes(page);
   console.log(`[field] precache: ${precache.entries} entries, ${(precache.bytes / 1e6).toFixed(2)} MB`);
   expect(precache.entries).toBeGreaterThan(10);

@@ -9,7 +9,6 @@ import { BearingList } from '@/components/hunt/bearing-list';
 import { BottomSheet } from '@/components/hunt/bottom-sheet';
 import { FixSummary } from '@/components/hunt/fix-summary';
 import { formatLatLon } from '@/components/hunt/format-position';
-import { HuntWarnings } from '@/components/hunt/hunt-warnings';
 import { SweepEntry } from '@/components/hunt/sweep-entry';
 import { useHuntData } from '@/components/hunt/use-hunt-data';
 import { DoorsSection } from '@/components/hunt/doors-section';
@@ -101,7 +100,6 @@ export function FieldScreen({ caseId }: { caseId: string }) {
       void refresh();
     },
   };
-  const from = phone.position ?? selected?.position ?? null;
 
   return (
     <FieldQueueProvider value={hold}>
@@ -182,22 +180,24 @@ export function FieldScreen({ caseId }: { caseId: string }) {
           />
         </>
       )}
-      <FixSummary fix={fix} />
+      <div className="card">
+        <FixSummary fix={fix} />
+      </div>
       <OfflineFixCard bearings={bearings ?? []} queued={queue.items} />
       {mode === 'bearings' && (
         <NextSpotsList
-          spots={fix?.nextSpots ?? []}
-          from={from}
+          bearings={bearings ?? []}
+          serverSpots={fix?.nextSpots ?? []}
+          from={phone.position}
           onPick={(s) => {
             setSaved(null);
             setSelected({ position: { lat: s.lat, lon: s.lon }, why: `suggested spot, ellipse ${formatApproxMetres(s.expectedSemiMajorM)} expected` });
           }}
         />
       )}
-      <HuntWarnings fix={fix} />
       <DoorsSection doors={doors} canConfirm={canHunt} point={selected?.position ?? null} onConfirmed={() => void refresh()} />
       {!canHunt && <p className="text-ink-soft">You can follow this hunt but not add bearings to it.</p>}
-      <BearingList caseId={caseId} bearings={bearings ?? []} outlierIds={outlierIds} canEdit={canHunt} onChanged={refresh} />
+      <BearingList caseId={caseId} bearings={bearings ?? []} outlierIds={outlierIds} canEdit={canHunt} refresh={refresh} />
 
       {canHunt && <PrepareArea caseId={caseId} centre={f && f.ok ? { lat: f.lat, lon: f.lon } : (caseDetail.reportedPosition ?? null)} />}
 

@@ -1,10 +1,9 @@
 import { route, json, readJson } from '@/lib/api/handler';
 import { requireUser } from '@/lib/auth/session';
 import { inTransaction } from '@/db';
-import { lockCase } from '@/db/cases';
 import { listLevelReadings } from '@/db/level-readings';
 import { readingInputSchema } from '@/lib/validation/readings';
-import { caseIdSchema, loadVisibleCase } from '@/lib/hunt/case-detail';
+import { caseIdSchema, loadVisibleCase, lockVisibleCase } from '@/lib/hunt/case-detail';
 import { addLevelReading, toLevelReadingView, trailPeakView } from '@/lib/hunt/readings';
 import { forbidden } from '@/lib/errors';
 
@@ -22,8 +21,10 @@ export const GET = route<{ id: string }>(async (_req, ctx) => {
 export const POST = route<{ id: string }>(async (req, ctx) => {
   const { id } = caseIdSchema.parse(await ctx.params);
   const me = await requireUser('admin', 'coordinator', 'hunter');
-  await loadVisibleCase(me, id);
-  const input = readingInputSchema.parse(await readJson(req));
-  const { reading, repeat } = await inTransaction(async (trx) => addLevelReading(trx, me, (await lockCase(trx, id))!, input));
+  const body = await readJson(req);
+  const { reading, repeat } = await inTransaction(async (trx) => {
+    const { row } = await lockVisibleCase(trx, me, id);
+    return addLevelReading(trx, me, row, readingInputSchema.parse(body));
+  });
   return json({ reading }, repeat ? 200 : 201);
 });
