@@ -17,6 +17,19 @@ const NAV: { href: string; label: string; roles: Role[] }[] = [
   { href: '/admin/templates', label: 'Letters', roles: ['admin'] },
 ];
 
+/** The main navigation; the phone menu and the wide-screen row differ only in layout. */
+function MainNav({ links, className, linkClassName }: { links: typeof NAV; className: string; linkClassName: string }) {
+  return (
+    <nav aria-label="Main" className={className}>
+      {links.map((n) => (
+        <Link key={n.href} href={n.href} className={`rounded-md px-3 font-semibold text-ink hover:bg-hush-50 hover:no-underline ${linkClassName}`}>
+          {n.label}
+        </Link>
+      ))}
+    </nav>
+  );
+}
+
 export default async function SignedInLayout({ children }: { children: React.ReactNode }) {
   const user = await requirePageUser();
   const links = NAV.filter((n) => n.roles.includes(user.role));
@@ -33,21 +46,9 @@ export default async function SignedInLayout({ children }: { children: React.Rea
             <summary className="inline-flex min-h-12 cursor-pointer list-none items-center rounded-md px-3 font-semibold text-ink hover:bg-hush-50" data-testid="nav-menu">
               Menu
             </summary>
-            <nav aria-label="Main" className="absolute left-0 z-[1100] mt-1 flex w-56 flex-col rounded-lg border border-ink/15 bg-white p-1 shadow-lg">
-              {links.map((n) => (
-                <Link key={n.href} href={n.href} className="flex min-h-12 items-center rounded-md px-3 font-semibold text-ink hover:bg-hush-50 hover:no-underline">
-                  {n.label}
-                </Link>
-              ))}
-            </nav>
+            <MainNav links={links} className="absolute left-0 z-[1100] mt-1 flex w-56 flex-col rounded-lg border border-ink/15 bg-white p-1 shadow-lg" linkClassName="flex min-h-12 items-center" />
           </details>
-          <nav aria-label="Main" className="hidden flex-1 flex-wrap gap-1 sm:flex">
-            {links.map((n) => (
-              <Link key={n.href} href={n.href} className="rounded-md px-3 py-2 text-sm font-semibold text-ink hover:bg-hush-50 hover:no-underline">
-                {n.label}
-              </Link>
-            ))}
-          </nav>
+          <MainNav links={links} className="hidden flex-1 flex-wrap gap-1 sm:flex" linkClassName="py-2 text-sm" />
           <div className="flex items-center gap-2 text-sm">
             <span className="hidden text-ink-soft sm:inline" data-testid="who">
               {user.name} · {user.role}
