@@ -2,16 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { SurveyRefused, joinByTime, readGpxTrack, readLevelCsv, strongestPoint, walkedSurvey } from '@/lib/survey/walked-survey';
 import { sUnitsToDbm } from '@/lib/df';
 
-// A fictional walk on open land; GPX 1.1 layout as in the Topografix GPX 1.1 schema.
-const T0 = Date.parse('2026-11-30T14:00:00Z');
-const iso = (s: number) => new Date(T0 + s * 1000).toISOString();
-function gpxOf(points: { lat: number; lon: number; s: number; level?: string }[]) {
-  const pts = points
-    .map((p) => `      <trkpt lat="${p.lat}" lon="${p.lon}"><time>${iso(p.s)}</time>${p.level ? `<extensions><qf:level unit="S">${p.level}</qf:level></extensions>` : ''}</trkpt>`)
-    .join('\n');
-  return `<?xml version="1.0" encoding="UTF-8"?>\n<gpx version="1.1" creator="test" xmlns="http://www.topografix.com/GPX/1/1" xmlns:qf="urn:example:quietfix">\n  <trk><trkseg>\n${pts}\n  </trkseg></trk>\n</gpx>\n`;
-}
-const walk = Array.from({ length: 10 }, (_, i) => ({ lat: -31.05 + i * 0.0001, lon: 129.75, s: i * 10 }));
+import { gpxOf, iso, walk } from '../../support/survey';
 
 describe('walked survey import', () => {
   it('GPX + CSV joined by time within the stated tolerance; levels too far from any point are left out', () => {
