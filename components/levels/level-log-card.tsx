@@ -1,6 +1,7 @@
 'use client';
 
 import { z } from 'zod';
+import type { UseFormRegisterReturn } from 'react-hook-form';
 import useSWR from 'swr';
 import { CartesianGrid, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { fetchJson } from '@/lib/api/client';
@@ -20,6 +21,24 @@ const formSchema = z.object({
   bandwidthHz: z.coerce.number<string>().positive('The receiver bandwidth in Hz.'),
   phase: z.enum(['before', 'after']),
 });
+
+/** A labelled select of fixed choices. */
+function Choice({ id, label, registration, options }: { id: string; label: string; registration: UseFormRegisterReturn; options: [string, string][] }) {
+  return (
+    <div>
+      <label htmlFor={id} className="label">
+        {label}
+      </label>
+      <select id={id} className="field" {...registration}>
+        {options.map(([v, words]) => (
+          <option key={v} value={v}>
+            {words}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}
 
 const signed = (x: number) => `${x > 0 ? '+' : ''}${x}`;
 
@@ -75,25 +94,9 @@ export function LevelLogCard({ caseId }: { caseId: string }) {
       <form onSubmit={submit} className="grid grid-cols-2 gap-2" noValidate>
         <TextField id="lv-freq" label="Frequency (kHz)" inputMode="decimal" registration={form.register('frequencyKhz')} error={errors.frequencyKhz} />
         <TextField id="lv-bw" label="Bandwidth (Hz)" inputMode="numeric" registration={form.register('bandwidthHz')} error={errors.bandwidthHz} />
-        <div>
-          <label htmlFor="lv-unit" className="label">
-            Unit
-          </label>
-          <select id="lv-unit" className="field" {...form.register('unit')}>
-            <option value="S">S-units</option>
-            <option value="dBm">dBm</option>
-          </select>
-        </div>
+        <Choice id="lv-unit" label="Unit" registration={form.register('unit')} options={[['S', 'S-units'], ['dBm', 'dBm']]} />
         <TextField id="lv-value" label="Level" inputMode="decimal" registration={form.register('value')} error={errors.value} />
-        <div>
-          <label htmlFor="lv-phase" className="label">
-            When
-          </label>
-          <select id="lv-phase" className="field" {...form.register('phase')}>
-            <option value="before">before the fix</option>
-            <option value="after">after the fix</option>
-          </select>
-        </div>
+        <Choice id="lv-phase" label="When" registration={form.register('phase')} options={[['before', 'before the fix'], ['after', 'after the fix']]} />
         <div className="flex items-end">
           <button type="submit" className="btn-primary w-full" disabled={pending}>
             Log the level

@@ -3,18 +3,10 @@
  * pulse trains and noise, and a 16-bit PCM WAV writer (RIFF layout as in the Microsoft/IBM
  * Multimedia Programming Interface and Data Specifications 1.0, 1991).
  */
+import { mulberry32 } from '../unit/df/support/scene';
 
-/** A small seeded generator (mulberry32) so every run makes the same noise. */
-export function rng(seed = 1): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The same seeded generator (mulberry32) as the df tests, so every run makes the same noise. */
+export const rng = (seed = 1) => mulberry32(seed);
 
 /** Gaussian white noise of standard deviation `sigma` (Box–Muller). */
 export function whiteNoise(n: number, sigma: number, seed = 7): Float32Array {
