@@ -3,7 +3,7 @@
  * pulse trains and noise, and a 16-bit PCM WAV writer (RIFF layout as in the Microsoft/IBM
  * Multimedia Programming Interface and Data Specifications 1.0, 1991).
  */
-import { mulberry32 } from '../unit/df/support/scene';
+import { mulberry32 } from './random';
 
 /** The same seeded generator (mulberry32) as the df tests, so every run makes the same noise. */
 export const rng = (seed = 1) => mulberry32(seed);
