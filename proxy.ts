@@ -51,7 +51,7 @@ function withHeaders<R extends NextResponse>(res: R, own: Record<string, string>
 export async function proxy(req: NextRequest) {
   const { pathname } = req.nextUrl;
   const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString('base64');
-  const own = securityHeaders(pathname, { nonce, https: appIsHttps, dev: env.NODE_ENV === 'development', tileUrls: [env.TILE_URL] });
+  const own = securityHeaders(pathname, { nonce, https: appIsHttps, dev: env.NODE_ENV === 'development', tileUrls: [env.TILE_URL], storageOrigins: [env.S3_ENDPOINT] });
   if (!pathDecodes(pathname)) {
     if (pathname.startsWith('/api/')) {
       return withHeaders(NextResponse.json({ error: 'The address contains broken percent-encoding.' }, { status: 400, headers: { 'cache-control': 'no-store' } }), own);

@@ -1,4 +1,6 @@
 import type { Knex } from 'knex';
+import { JOB, outboxJobKey } from '@/lib/jobs/names';
+import { addJob } from './jobs';
 
 /**
  * The outbox: one row per e-mail to send. Rows are written in the same transaction as the
@@ -74,7 +76,33 @@ export async function insertOutbox(
       html_body: r.htmlBody ?? null,
     })
     .returning('*');
+  // Its delivery job commits (or rolls back) with the row.
+  await scheduleDelivery(trx, String(row.id));
   return fromDb(row);
+}
+
+/** (Re)queues the delivery job of a row for the given time (one job per row: the key). */
+export async function scheduleDelivery(q: Knex, id: string, runAt?: Date): Promise<void> {
+  await addJob(q, JOB.deliverMail, { outboxId: id }, { jobKey: outboxJobKey(id), runAt });
+}
+
+/**
+ * Pending rows with no live delivery job: none at all (a crash between two statements), or one
+ * locked longer than `staleMs` by a worker that died (graphile-worker frees such locks only after
+ * four hours). Answers when each should run: after its backoff and after any lease held on it.
+ */
+export async function rowsWithoutLiveJob(q: Knex, staleMs: number, limit = 200): Promise<{ id: string; runAt: Date }[]> {
+  const { rows } = await q.raw(
+    `select o.id, greatest(o.next_attempt_at, coalesce(o.lease_until, o.next_attempt_at)) as run_at
+       from outbox o
+      where o.status = 'pending'
+        and not exists (select 1 from graphile_worker.jobs j
+                         where j.key = 'outbox:' || o.id
+                           and (j.locked_at is null or j.locked_at > now() - (? * interval '1 millisecond')))
+      order by o.id limit ?`,
+    [staleMs, limit],
+  );
+  return rows.map((r: { id: string; run_at: Date }) => ({ id: String(r.id), runAt: new Date(r.run_at) }));
 }
 
 export async function getOutboxRow(q: Knex, id: string): Promise<OutboxRow | undefined> {
@@ -149,8 +177,12 @@ export async function markFailed(q: Knex, id: string, p: { workerId: string; err
 }
 
 /** Sent rows whose notice and case have not been updated yet (a crash in between, or just now). */
-export async function sentWithoutEffects(q: Knex, limit = 50): Promise<OutboxRow[]> {
-  const rows = await q('outbox').where({ status: 'sent', effects_applied: false }).orderBy('id').limit(limit);
+export async function sentWithoutEffects(q: Knex, limit = 50, minAgeMs = 0): Promise<OutboxRow[]> {
+  const rows = await q('outbox')
+    .where({ status: 'sent', effects_applied: false })
+    .andWhereRaw("sent_at <= now() - (? * interval '1 millisecond')", [minAgeMs])
+    .orderBy('id')
+    .limit(limit);
   return rows.map(fromDb);
 }
 
@@ -166,6 +198,7 @@ export async function markEffectsApplied(trx: Knex, id: string): Promise<void> {
 /** A coordinator's retry of a failed row: fresh tries, due now, same Message-ID. */
 export async function requeue(trx: Knex, id: string): Promise<void> {
   await trx('outbox').where({ id }).update({ status: 'pending', attempts: 0, next_attempt_at: trx.fn.now(), lease_until: null, leased_by: null });
+  await scheduleDelivery(trx, id);
 }
 
 /** Whether a drain should keep waiting: rows due now, or held by a lease (maybe of a dead worker). */

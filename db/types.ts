@@ -22,6 +22,10 @@ export type ClubSettings = {
   locateThresholdM: number;
   reminderDays: number;
   maxPositionAccuracyM: number;
+  /** largest evidence file, megabytes (10^6 bytes) */
+  uploadMaxMb: number;
+  /** ITU-R P.372 man-made noise category the expected floor uses */
+  noiseEnvironment: 'city' | 'residential' | 'rural' | 'quiet-rural';
 };
 
 export type Profile = {

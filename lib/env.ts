@@ -46,6 +46,15 @@ const schema = z.object({
   OUTBOX_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(100).default(8),
   OUTBOX_BATCH_SIZE: z.coerce.number().int().min(1).max(500).default(10),
   OUTBOX_POLL_MS: z.coerce.number().int().min(50).default(2000),
+  // Evidence files: any S3-compatible object store (npm start/test run a local fake, scripts/s3-fake.ts).
+  // The browser PUTs and GETs to S3_ENDPOINT directly (presigned URLs), so its origin joins the CSP.
+  S3_ENDPOINT: z.url().default('http://127.0.0.1:4569'),
+  S3_BUCKET: z.string().min(3).max(63).default('quietfix-evidence'),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().min(1).default('S3RVER'),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).default('S3RVER'),
+  /** path-style URLs (http://host/bucket/key): needed by the fake and most self-hosted stores */
+  S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
   // Sign-in and reset limits key on the socket address; set this only behind a reverse proxy:
   // 'any' (every peer is the proxy) or its addresses, comma-separated. Then the right-most
   // X-Forwarded-For entry (the hop the proxy added) is the client. lib/auth/client-address.ts.

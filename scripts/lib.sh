@@ -169,6 +169,7 @@ db_env() { # name port
 }
 
 migrate() {
-  (cd "$ROOT" && node --import tsx node_modules/knex/bin/cli.js --knexfile knexfile.ts migrate:latest >"$DATA/migrate.log" 2>&1) \
+  (cd "$ROOT" && node --import tsx node_modules/knex/bin/cli.js --knexfile knexfile.ts migrate:latest >"$DATA/migrate.log" 2>&1 \
+    && node --import tsx scripts/queue-schema.ts >>"$DATA/migrate.log" 2>&1) \
     || { tail -n 20 "$DATA/migrate.log" >&2; die "database migration failed (log: .data/migrate.log)."; }
 }

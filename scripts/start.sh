@@ -12,10 +12,13 @@ export NEXTAUTH_URL="${NEXTAUTH_URL:-$APP_URL}"
 export CATCHER_SMTP_PORT="${CATCHER_SMTP_PORT:-1025}" CATCHER_HTTP_PORT="${CATCHER_HTTP_PORT:-8025}"
 export SMTP_HOST="${SMTP_HOST:-127.0.0.1}" SMTP_PORT="${SMTP_PORT:-$CATCHER_SMTP_PORT}"
 export MAIL_CATCHER_URL="${MAIL_CATCHER_URL-http://127.0.0.1:$CATCHER_HTTP_PORT}"
+# Evidence files: the local object store unless S3_ENDPOINT names a real one.
+export S3_FAKE_PORT="${S3_FAKE_PORT:-4569}" S3_FAKE_DIR="${S3_FAKE_DIR:-$DATA/s3}"
+export S3_ENDPOINT="${S3_ENDPOINT:-http://127.0.0.1:$S3_FAKE_PORT}" S3_RUN_FAKE="${S3_RUN_FAKE:-$([ "$S3_ENDPOINT" = "http://127.0.0.1:$S3_FAKE_PORT" ] && echo 1 || echo 0)}"
 # NODE_ENV stays unset here: npm ci must install the build tools (dev dependencies); the server runs as production.
 HOSTNAME_BIND="${HOST:-127.0.0.1}"
 
-catcher_pid=""; app_pid=""; worker_pid=""; pg_started=0
+catcher_pid=""; app_pid=""; worker_pid=""; s3_pid=""; pg_started=0
 cleanup() {
   local rc=$?
   trap - INT TERM EXIT
@@ -23,7 +26,7 @@ cleanup() {
   say "stopping…"
   # Returns once the app, catcher, worker and (if started here) the cluster are gone.
   # shellcheck disable=SC2086
-  stop_groups 10 $app_pid $catcher_pid $worker_pid || true
+  stop_groups 10 $app_pid $catcher_pid $worker_pid $s3_pid || true
   [ "$pg_started" = 1 ] && bash "$ROOT/scripts/pg.sh" down pg || true
   rm -f "$DATA/start.pids"
   exit "$rc"
@@ -57,17 +60,24 @@ if [ -n "$MAIL_CATCHER_URL" ]; then
   wait_http "$MAIL_CATCHER_URL/" 20 || die "the mail catcher did not start (log: .data/mail-catcher.log)."
 fi
 
+if [ "$S3_RUN_FAKE" = 1 ]; then
+  need_free_port "$S3_FAKE_PORT" "the local object store" "S3_FAKE_PORT"
+  s3_pid=$(spawn "$DATA/s3-fake.log" node --import tsx scripts/s3-fake.ts)
+  wait_http "$S3_ENDPOINT/" 20 || die "the local object store did not start (log: .data/s3-fake.log)."
+fi
+
 ensure_build
 app_pid=$(spawn "$DATA/app.log" env NODE_ENV=production node --import tsx scripts/serve.ts -p "$PORT" -H "$HOSTNAME_BIND")
 # Delivers queued notices and alerts (retries, reminders); see lib/notices/README.md.
 worker_pid=$(spawn "$DATA/outbox-worker.log" node --import tsx scripts/outbox-worker.ts)
-write_pids "$DATA/start.pids" "$app_pid" "$catcher_pid" "$worker_pid"
+write_pids "$DATA/start.pids" "$app_pid" "$catcher_pid" "$worker_pid" "$s3_pid"
 wait_http "http://127.0.0.1:$PORT/api/health" 60 || { tail -n 20 "$DATA/app.log" >&2; die "the app did not become healthy (log: .data/app.log)."; }
 
 cat <<TXT
 
   Quietfix is running at $APP_URL
   Mail catcher:   ${MAIL_CATCHER_URL:-(off: mail goes to $SMTP_HOST:$SMTP_PORT)}
+  Object store:   $S3_ENDPOINT
   Demo sign-ins (password: quietfix-demo)
     chair@example.test        admin
     coordinator@example.test  coordinator

@@ -12,17 +12,19 @@ export APP_URL="http://127.0.0.1:$TEST_PORT" NEXTAUTH_URL="http://127.0.0.1:$TES
 export CATCHER_SMTP_PORT="${TEST_SMTP_PORT:-1125}" CATCHER_HTTP_PORT="${TEST_CATCHER_HTTP_PORT:-8125}"
 export SMTP_HOST=127.0.0.1 SMTP_PORT="$CATCHER_SMTP_PORT" MAIL_CATCHER_URL="http://127.0.0.1:$CATCHER_HTTP_PORT"
 export CATCHER_STORE="$DATA/mail-test/messages.jsonl"
+export S3_FAKE_PORT="${TEST_S3_PORT:-4570}" S3_FAKE_DIR="$DATA/s3-test" S3_BUCKET="${TEST_S3_BUCKET:-quietfix-test}"
+export S3_ENDPOINT="http://127.0.0.1:$S3_FAKE_PORT"
 export PG_FSYNC=off
 export QUIETFIX_TEST_PG=pg-test
 
-catcher_pid=""; app_pid=""; worker_pid=""
+catcher_pid=""; app_pid=""; worker_pid=""; s3_pid=""
 cleanup() {
   local rc=$?
   trap - INT TERM EXIT
   quiet_if_failed "$rc"
   stop_step
   # shellcheck disable=SC2086
-  stop_groups 10 $app_pid $catcher_pid $worker_pid || true
+  stop_groups 10 $app_pid $catcher_pid $worker_pid $s3_pid || true
   bash "$ROOT/scripts/pg.sh" down pg-test >/dev/null 2>&1 || true
   rm -f "$DATA/test.pids"
   exit "$rc"
@@ -37,6 +39,7 @@ write_pids "$DATA/test.pids"  # from now on npm run stop can find and stop this 
 need_free_port "$TEST_PORT" "the test app" "TEST_PORT"
 need_free_port "$CATCHER_SMTP_PORT" "the test mail catcher" "TEST_SMTP_PORT"
 need_free_port "$CATCHER_HTTP_PORT" "the test mail catcher API" "TEST_CATCHER_HTTP_PORT"
+need_free_port "$S3_FAKE_PORT" "the test object store" "TEST_S3_PORT"
 ensure_node_modules
 ensure_secret
 db_env "$DB_NAME" "$DB_PORT"
@@ -51,13 +54,16 @@ run_step npx vitest run --project unit || rc=1
 
 rm -f "$CATCHER_STORE"
 catcher_pid=$(spawn "$DATA/mail-catcher-test.log" node --import tsx scripts/mail-catcher.ts)
-write_pids "$DATA/test.pids" "$catcher_pid"
+rm -rf "$S3_FAKE_DIR"
+s3_pid=$(spawn "$DATA/s3-fake-test.log" node --import tsx scripts/s3-fake.ts)
+write_pids "$DATA/test.pids" "$catcher_pid" "$s3_pid"
 ensure_build
 # The app trusts 127.0.0.9 as a reverse proxy (tests act as that proxy to check the right-most rule).
 app_pid=$(spawn "$DATA/app-test.log" env NODE_ENV=production TRUSTED_PROXY=127.0.0.9 node --import tsx scripts/serve.ts -p "$TEST_PORT" -H 127.0.0.1)
 # The outbox worker, polling often so tests see mail quickly; short backoff and lease for outage tests.
 worker_pid=$(spawn "$DATA/outbox-worker-test.log" env OUTBOX_POLL_MS=300 OUTBOX_BACKOFF_BASE_MS=500 OUTBOX_LEASE_MS=5000 node --import tsx scripts/outbox-worker.ts)
-write_pids "$DATA/test.pids" "$app_pid" "$catcher_pid" "$worker_pid"
+write_pids "$DATA/test.pids" "$app_pid" "$catcher_pid" "$worker_pid" "$s3_pid"
+wait_http "$S3_ENDPOINT/" 20 || die "the test object store did not start (log: .data/s3-fake-test.log)."
 wait_http "$MAIL_CATCHER_URL/" 20 || die "the test mail catcher did not start (log: .data/mail-catcher-test.log)."
 wait_http "$TEST_BASE_URL/api/health" 60 || { tail -n 20 "$DATA/app-test.log" >&2; die "the test app did not become healthy (log: .data/app-test.log)."; }
 

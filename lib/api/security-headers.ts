@@ -21,18 +21,22 @@ export type HeaderOptions = {
   dev: boolean;
   /** tile URL templates whose origins images and fetches may come from */
   tileUrls: string[];
+  /** object storage origins the browser PUTs evidence to and loads photos and recordings from (presigned URLs) */
+  storageOrigins?: string[];
 };
 
 /** The page policy: scripts only with the nonce (and what they load), no framing, no plugins. */
 export function pagePolicy(o: HeaderOptions): string {
   const tiles = o.tileUrls.map(tileSource).filter((s): s is string => !!s);
+  const storage = (o.storageOrigins ?? []).map((u) => new URL(u).origin);
   const directives = [
     `default-src 'self'`,
     `script-src 'self' 'nonce-${o.nonce}' 'strict-dynamic'${o.dev ? ` 'unsafe-eval'` : ''}`,
     // Leaflet positions its panes and icons with inline style attributes.
     `style-src 'self' 'unsafe-inline'`,
-    ['img-src', `'self'`, 'data:', 'blob:', ...tiles].join(' '),
-    ['connect-src', `'self'`, ...tiles].join(' '),
+    ['img-src', `'self'`, 'data:', 'blob:', ...tiles, ...storage].join(' '),
+    ['media-src', `'self'`, 'blob:', ...storage].join(' '),
+    ['connect-src', `'self'`, ...tiles, ...storage].join(' '),
     `font-src 'self'`,
     `worker-src 'self'`,
     `manifest-src 'self'`,

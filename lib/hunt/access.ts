@@ -82,3 +82,17 @@ export function mayAttemptTransition(user: Pick<User, 'id' | 'role'>, c: CaseFac
 export function allowedTransitions(user: Pick<User, 'id' | 'role'>, c: CaseFacts): CaseStatus[] {
   return TRANSITION_RULES.filter((t) => t.from.includes(c.status) && t.by.some((r) => holdsRelation(user, c, r))).map((t) => t.to);
 }
+
+/**
+ * Evidence files follow the case: whoever may see the case sees its files and may add to them;
+ * a file is deleted by whoever attached it or by the committee. Photos as uploaded (with their
+ * location and camera data) are for the committee; everyone else gets the stripped copy.
+ */
+export function fileAccess(user: Pick<User, 'id' | 'role'>, access: CaseAccess, file?: { uploadedBy: string | null }) {
+  return {
+    see: access.view,
+    add: access.comment,
+    delete: access.committee || (!!file && file.uploadedBy === user.id),
+    originalPhoto: access.committee,
+  };
+}

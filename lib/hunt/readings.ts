@@ -4,7 +4,8 @@ import { findLevelReadingByClientId, getLevelReading, insertLevelReading, type L
 import { getProfile } from '@/db/users';
 import type { CaseRow, User } from '@/db/types';
 import { sUnitsToDbm, trailPeak, type TrailPeak } from '@/lib/df';
-import { conflict, forbidden } from '@/lib/errors';
+import { badRequest, conflict, forbidden } from '@/lib/errors';
+import { SurveyRefused, walkedSurvey } from '@/lib/survey/walked-survey';
 import type { readingInputSchema } from '@/lib/validation/readings';
 import { caseAccess } from './access';
 
@@ -94,4 +95,45 @@ export async function addLevelReading(trx: Knex.Transaction, user: User, row: Ca
     takenAt: new Date(input.takenAt),
   });
   return { reading: toLevelReadingView((await getLevelReading(id, trx))!), repeat: false };
+}
+
+/**
+ * A walked survey imported from GPX (+ CSV) into the same trail as walked readings (source 'gpx'):
+ * all points or none, in one transaction; answers the count, the levels left out and the peak.
+ */
+export async function importSurvey(
+  trx: Knex.Transaction,
+  user: User,
+  row: CaseRow,
+  input: { gpx: string; csv?: string; toleranceS: number; frequencyKhz?: number },
+): Promise<{ imported: number; unmatchedCsvRows: number[]; toleranceS: number; peak: ReturnType<typeof trailPeakView> }> {
+  if (!caseAccess(user, row).hunt) throw forbidden('Only the assigned hunter or a coordinator can add readings to this case, while it is being hunted.');
+  let survey;
+  try {
+    survey = walkedSurvey(input.gpx, input.csv, input.toleranceS);
+  } catch (err) {
+    if (err instanceof SurveyRefused) throw badRequest(err.message);
+    throw err;
+  }
+  if (!survey.points.length) throw badRequest(`No level in the CSV lies within ${input.toleranceS} s of a track point: check the clocks or widen the tolerance.`);
+  const offset = (await getProfile(user.id, trx))?.sMeterOffsetDb ?? 0;
+  const views: { lat: number; lon: number; levelDbm: number }[] = [];
+  for (const p of survey.points) {
+    const levelDbm = readingDbm(p.level, input.frequencyKhz, offset);
+    await insertLevelReading(trx, row.id, user.id, {
+      clientId: null,
+      source: 'gpx',
+      lat: p.lat,
+      lon: p.lon,
+      accuracyM: null,
+      levelUnit: p.level.unit,
+      levelValue: p.level.value,
+      levelDbm,
+      frequencyKhz: input.frequencyKhz ?? null,
+      note: '',
+      takenAt: p.takenAt,
+    });
+    views.push({ lat: p.lat, lon: p.lon, levelDbm });
+  }
+  return { imported: survey.points.length, unmatchedCsvRows: survey.unmatched, toleranceS: survey.toleranceS, peak: trailPeakView(views) };
 }

@@ -1,4 +1,6 @@
 import type { Knex } from 'knex';
+import { listLevels } from '@/db/levels';
+import { beforeAfter } from '@/lib/levels/level-log';
 import { appendEvent, latestPremisesConfirmation, writeCase } from '@/db/cases';
 import { latestFixSnapshot } from '@/db/fixes';
 import { getClubSettings } from '@/db/settings';
@@ -50,6 +52,11 @@ export async function applyTransition(trx: Knex.Transaction, user: User, row: Ca
   if (!mayAttemptTransition(user, row, t.to)) throw forbidden(`Your role cannot move a case to ${t.to}.`);
   await assertVersion(trx, row, t.version);
   if (!allowedTransitions(user, row).includes(t.to)) throw ruleNotMet(`A case that is ${row.status} cannot move to ${t.to}.`);
+  // Resolving without typed levels takes them from the level log (before/after medians on one frequency).
+  if (t.to === 'resolved' && t.levelBeforeDbm === undefined && t.levelAfterDbm === undefined) {
+    const ba = beforeAfter(await listLevels(row.id, trx));
+    if (ba) t = { ...t, levelBeforeDbm: ba.beforeDbm, levelAfterDbm: ba.afterDbm };
+  }
   const evidence = await checkEvidence(trx, user, row, t);
   await writeCase(trx, row.id, {
     status: t.to,

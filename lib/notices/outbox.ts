@@ -5,7 +5,7 @@ import { randomBytes } from 'node:crypto';
 import { db } from '@/db';
 import { appendEvent, lockCase, writeCase } from '@/db/cases';
 import { getNotice, lockNotice, writeNotice } from '@/db/notices';
-import { claimDue, getOutboxRow, lockOutboxRow, markEffectsApplied, markFailed, markSent, sentWithoutEffects, type OutboxRow } from '@/db/outbox';
+import { claimDue, getOutboxRow, lockOutboxRow, markEffectsApplied, markFailed, markSent, rowsWithoutLiveJob, scheduleDelivery, sentWithoutEffects, type OutboxRow } from '@/db/outbox';
 import { mailer } from '@/lib/mail/send';
 import { composeAccountMail, RetiredLinkError } from '@/lib/auth/account-mail';
 import { env } from '@/lib/env';
@@ -130,6 +130,11 @@ export async function deliverOne(row: OutboxRow, o: WorkerOptions & { workerId: 
     delayMs: backoffMs(row.attempts, s.backoffBaseMs, s.backoffCapMs),
     maxAttempts: permanent ? 0 : s.maxAttempts,
   });
+  if (result === 'pending') {
+    // The next try is the row's delivery job, due after the backoff.
+    const later = await getOutboxRow(s.q, row.id);
+    if (later) await scheduleDelivery(s.q, row.id, later.nextAttemptAt);
+  }
   if (result === 'failed' && row.noticeId) {
     await s.q.transaction(async (trx) => {
       const n = await lockNotice(trx, row.noticeId!);
@@ -137,6 +142,42 @@ export async function deliverOne(row: OutboxRow, o: WorkerOptions & { workerId: 
     });
   }
   return result;
+}
+
+/**
+ * The delivery job of one outbox row (lib/jobs/tasks.ts): claim it with a lease, send, record.
+ * A row not claimable now (another worker holds its lease, or its backoff is not over) gets its
+ * job back for later; a sent or failed row needs nothing.
+ */
+export async function deliverQueued(outboxId: string, o: WorkerOptions & { workerId: string }): Promise<'sent' | 'pending' | 'failed' | 'lost-lease' | 'later' | 'done'> {
+  const s = settings(o);
+  const [row] = await claimBatch({ ...o, onlyIds: [outboxId], batchSize: 1 });
+  if (row) return deliverOne(row, o);
+  const r = await getOutboxRow(s.q, outboxId);
+  if (r?.status !== 'pending') return 'done';
+  const at = Math.max(new Date(r.nextAttemptAt).getTime(), r.leaseUntil ? new Date(r.leaseUntil).getTime() : 0);
+  await scheduleDelivery(s.q, outboxId, new Date(at));
+  return 'later';
+}
+
+/**
+ * The safety net beside the queue: pending rows whose job is gone or held by a dead worker get a
+ * fresh job, and sent rows whose notice/case update was cut short are finished. Cheap; the worker
+ * runs it every OUTBOX_POLL_MS.
+ */
+export async function rescueOutbox(o: WorkerOptions = {}): Promise<{ requeued: number; effects: number }> {
+  const s = settings(o);
+  const out = { requeued: 0, effects: 0 };
+  // Rows sent a moment ago are being finished by their own job; only older ones were cut short.
+  for (const r of await sentWithoutEffects(s.q, 50, s.leaseMs)) {
+    await applySentEffects(s.q, r.id);
+    out.effects++;
+  }
+  for (const r of await rowsWithoutLiveJob(s.q, s.leaseMs)) {
+    await scheduleDelivery(s.q, r.id, r.runAt);
+    out.requeued++;
+  }
+  return out;
 }
 
 export type RunResult = { claimed: number; sent: number; retrying: number; failed: number; effects: number; reminders: number };

@@ -28,3 +28,11 @@ export const readingInputSchema = z.object({
   note: safeText().trim().max(500).default(''),
 });
 export type ReadingInput = z.input<typeof readingInputSchema>;
+
+/** A walked survey from files: the GPX text, optionally a CSV of timed levels and the join tolerance. */
+export const surveyImportSchema = z.object({
+  gpx: safeText().min(1, 'Paste or choose the GPX file.').max(900_000, 'The GPX is larger than 900 kB.'),
+  csv: safeText().max(300_000, 'The CSV is larger than 300 kB.').optional(),
+  toleranceS: z.number().min(0).max(120, 'A tolerance above 2 minutes joins levels to the wrong place.').default(5),
+  frequencyKhz: z.number().positive().max(3_000_000).optional(),
+});

@@ -24,6 +24,9 @@ const HUNT_READ = { anon: 401, admin: 200, coordinator: 200, hunter: 200, member
 const HUNT_WRITE_BAD_BODY = { anon: 401, admin: 400, coordinator: 400, hunter: 400, member: 403 };
 const COMMITTEE_BAD_BODY = { anon: 401, admin: 400, coordinator: 400, hunter: 403, member: 403 };
 const COMMITTEE_READ = { anon: 401, admin: 200, coordinator: 200, hunter: 403, member: 403 };
+/** Allowed to look, and the thing looked for does not exist. */
+const ALL_SIGNED_IN_NOT_FOUND = { anon: 401, admin: 404, coordinator: 404, hunter: 404, member: 404 };
+const NO_FILE = '00000000-0000-4000-8000-00000000f11e';
 /** A household's details and the other-case warning: the committee's only (the hunter sees a notice exists and its status). */
 const RECIPIENT_DETAILS = { from: ['hunter'] as Who[], keys: ['recipientName', 'postalAddress', 'email', 'personalNote', 'answers', 'delivery', 'sameAddressElsewhere', 'responseLink', 'link'] };
 
@@ -73,6 +76,18 @@ export const ACCESS: Row[] = [
   { name: 'candidate houses', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/candidates`, expect: HUNT_READ },
   { name: 'read the premises', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/premises`, expect: HUNT_READ },
   { name: 'confirm the premises', method: 'PUT', path: (ids) => `/api/cases/${ids.openCase}/premises`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
+  // Evidence files follow the case: whoever sees it sees its files and may add some (files.test.ts
+  // covers deletion by the uploader or the committee, and the stripped photo copy).
+  { name: 'list files', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/files`, expect: ALL_SIGNED_IN },
+  { name: 'ask to upload a file', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/files`, body: () => ({}), expect: ALL_SIGNED_IN_BAD_BODY },
+  { name: 'complete an upload', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/files/${NO_FILE}/complete`, body: () => ({}), expect: ALL_SIGNED_IN_NOT_FOUND },
+  { name: 'read a file', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/files/${NO_FILE}`, expect: ALL_SIGNED_IN_NOT_FOUND },
+  { name: 'fetch a file', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/files/${NO_FILE}/content`, expect: ALL_SIGNED_IN_NOT_FOUND },
+  { name: 'fetch a thumbnail', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/files/${NO_FILE}/thumbnail`, expect: ALL_SIGNED_IN_NOT_FOUND },
+  { name: 'delete a file', method: 'DELETE', path: (ids) => `/api/cases/${ids.openCase}/files/${NO_FILE}`, expect: ALL_SIGNED_IN_NOT_FOUND },
+  { name: 'import a walked survey', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/readings/import`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
+  { name: 'read the level log', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/levels`, expect: HUNT_READ },
+  { name: 'log a level', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/levels`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
   { name: 'read own profile', method: 'GET', path: () => '/api/profile', expect: ALL_SIGNED_IN },
   { name: 'change own profile', method: 'PATCH', path: () => '/api/profile', body: () => ({}), expect: ALL_SIGNED_IN_BAD_BODY },
   { name: 'list assignable people', method: 'GET', path: () => '/api/people/hunters', expect: COMMITTEE_READ },

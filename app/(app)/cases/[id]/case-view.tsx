@@ -6,6 +6,8 @@ import { fetchJson } from '@/lib/api/client';
 import type { CaseDetail } from '@/lib/hunt/views';
 import { useCaseEvents, useHuntData } from '@/components/hunt/use-hunt-data';
 import { NoticeBox } from '@/components/ui/notice-box';
+import { EvidenceCard } from '@/components/evidence/evidence-card';
+import { LevelLogCard } from '@/components/levels/level-log-card';
 import { AssignmentCard } from './_components/assignment-card';
 import { CaseDetails } from './_components/case-details';
 import { CaseHeader } from './_components/case-header';
@@ -64,6 +66,7 @@ export function CaseView({ caseId, justFiled }: { caseId: string; justFiled: boo
           )}
           <CaseDetails c={c} />
           <AssignmentCard c={c} refresh={refreshAll} />
+          <EvidenceCard caseId={c.id} canAdd={c.can.comment} />
           <CaseTimeline events={events.data} error={events.error}>
             {c.can.comment && <CommentBox caseId={c.id} canConfirm={c.can.confirmPremises} onPosted={() => events.mutate()} />}
           </CaseTimeline>
@@ -71,6 +74,9 @@ export function CaseView({ caseId, justFiled }: { caseId: string; justFiled: boo
         {c.can.seeHunt && (
           <div className="min-w-0">
             <HuntPanel c={c} bearings={bearings} fix={fix} error={error} refresh={refreshAll} />
+            <div className="mt-4">
+              <LevelLogCard caseId={c.id} />
+            </div>
           </div>
         )}
       </div>

@@ -8,17 +8,7 @@ import type { LineOfBearing } from '@/lib/df';
 
 export type Spot = { fromSourceAzDeg: number; rangeM: number; sigmaDeg?: number; oneWay?: boolean };
 
-/** Seeded PRNG (mulberry32), uniform in [0, 1). */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { mulberry32 } from '../../../support/random';
 
 /** Standard normal deviates by Box-Muller from a uniform source. */
 export function gaussian(rand: () => number): () => number {
