@@ -1,7 +1,7 @@
 /**
  * npm run seed:scale — the 100,000-case club for the speed measurements (scripts/bench-api.ts).
  * Into the database SCALE_DB (default quietfix_scale) on the cluster DB_HOST/DB_PORT point at:
- * created if missing, migrated, emptied, then filled with COPY: 100,000 cases, 1,000,000 bearings,
+ * dropped and created anew, migrated, then filled with COPY: 100,000 cases, 1,000,000 bearings,
  * and people, timeline entries, fix snapshots and notices in proportion. All of it fiction: a made-up
  * club around the demo town, addresses under example.test, call signs starting with Q.
  * The coordinator signs in as coordinator@example.test with the demo password.
@@ -26,8 +26,10 @@ async function ensureDatabase() {
     database: 'postgres',
   });
   await admin.connect();
-  const { rowCount } = await admin.query('SELECT 1 FROM pg_database WHERE datname = $1', [SCALE_DB]);
-  if (!rowCount) await admin.query(`CREATE DATABASE "${SCALE_DB.replace(/"/g, '')}"`);
+  // Made anew each run: migrations give the schema and the default notice templates, the loader the rest.
+  const name = `"${SCALE_DB.replace(/"/g, '')}"`;
+  await admin.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
+  await admin.query(`CREATE DATABASE ${name}`);
   await admin.end();
 }
 
@@ -77,8 +79,6 @@ async function main() {
   try {
     await db.migrate.latest();
     console.log(`quietfix: ${SCALE_DB} migrated (${((Date.now() - started) / 1000).toFixed(1)} s)`);
-    await db.raw(`TRUNCATE users, cases, case_events, bearings, fix_snapshots, notices, notice_answers, outbox, saved_filters,
-      user_tokens, bearing_revisions, case_premises, club_settings_events RESTART IDENTITY CASCADE`);
     await db('club_settings').insert({ id: 1, club_name: 'Quillon Radio Circle', contact_email: 'committee@example.test' }).onConflict('id').ignore();
     const hash = await hashPassword(DEMO_PASSWORD);
     const rand = rng(20261202);
@@ -185,12 +185,13 @@ async function main() {
         for (const c of cases) if (c.fixLat !== null) yield [c.id, 'bearing-added', BEARINGS_PER_CASE, true, c.fixLat, c.fixLon, c.fixSize, (c.fixSize ?? 0) / 2, 30, '{}', c.activity];
       })());
       let n = 0;
-      await copyRows(conn, 'notices', ['case_id', 'template_key', 'status', 'recipient_name', 'postal_address', 'address_key', 'email', 'sent_at', 'created_at', 'updated_at'], (function* () {
+      // reminder_checked_at: the reminder sweep has already looked at these (as it would have, day by day).
+      await copyRows(conn, 'notices', ['case_id', 'template_key', 'status', 'recipient_name', 'postal_address', 'address_key', 'email', 'sent_at', 'created_at', 'updated_at', 'reminder_checked_at'], (function* () {
         for (const c of cases) {
           for (let k = 0; k < c.notices; k++) {
             n++;
             const at = c.notified ?? c.created;
-            yield [c.id, k === 0 ? 'first-notice' : 'follow-up', 'sent', `Householder ${n}`, `${n % 300} Quill Lane, Quillon`, `${n} quill lane quillon ${k}`, `house${n}@example.test`, at, at, at];
+            yield [c.id, k === 0 ? 'first-notice' : 'follow-up', 'sent', `Householder ${n}`, `${n % 300} Quill Lane, Quillon`, `${n} quill lane quillon ${k}`, `house${n}@example.test`, at, at, at, at];
           }
         }
       })());
