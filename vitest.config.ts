@@ -9,7 +9,8 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
+        // Seeded Monte-Carlo checks are CPU-bound: a loaded machine slows them, it never makes them wrong.
+        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node', testTimeout: 120_000 },
       },
       {
         resolve: { alias },

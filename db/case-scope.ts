@@ -1,17 +1,29 @@
 import type { Knex } from 'knex';
 import type { Role } from './types';
+import { CASE_RULES, RELATIONS, type CaseRight, type Relation } from '@/lib/hunt/access';
+
+const COLUMN = { assigneeId: 'assignee_id', reporterId: 'reporter_id' } as const;
 
 /**
- * The list form of the case access rule (lib/hunt/access.ts caseAccess.view): coordinators and admins
- * see every case, anyone else the cases assigned to them or reported by them. `alias` is the cases
- * table's alias in the query.
+ * The query form of lib/hunt/access.ts: limits a query on `cases as <alias>` to the cases on
+ * which `me` has `right`, built from the same table of rules as `caseAccess`. A relation the
+ * user's role cannot hold adds nothing; no relation at all matches no row.
  */
-export function scopeVisibleCases<B extends Knex.QueryBuilder>(b: B, viewer: { id: string; role: Role }, alias = 'c'): B {
-  if (viewer.role === 'admin' || viewer.role === 'coordinator') return b;
+export function whereCaseRight(b: Knex.QueryBuilder, me: { id: string; role: Role }, right: CaseRight, alias = 'c'): Knex.QueryBuilder {
+  const terms = Object.entries(CASE_RULES[right])
+    .map(([relation, statuses]) => ({ relation: RELATIONS[relation as Relation], statuses }))
+    .filter(({ relation }) => relation.roles.includes(me.role));
   return b.where((w) => {
-    if (viewer.role === 'hunter') w.where(`${alias}.assignee_id`, viewer.id).orWhere(`${alias}.reporter_id`, viewer.id);
-    else w.where(`${alias}.reporter_id`, viewer.id);
-  }) as B;
+    if (terms.length === 0) w.whereRaw('false');
+    for (const { relation, statuses } of terms) {
+      w.orWhere((t) => {
+        if (relation.column) t.where(`${alias}.${COLUMN[relation.column]}`, me.id);
+        else t.whereRaw('true');
+        if (statuses !== 'any') t.whereIn(`${alias}.status`, [...statuses]);
+      });
+    }
+  });
 }
 
-export const isCommittee = (role: Role) => role === 'admin' || role === 'coordinator';
+/** Coordinators and admins: the committee relation of lib/hunt/access.ts. */
+export const isCommittee = (role: Role) => RELATIONS.committee.roles.includes(role);

@@ -2,6 +2,8 @@ import type { Knex } from 'knex';
 import { db } from './index';
 import type { CaseEvent, CaseRow, CaseStatus, Role } from './types';
 import type { Page, Paging } from '@/lib/api/paging';
+import type { CaseRight } from '@/lib/hunt/access';
+import { whereCaseRight } from './case-scope';
 
 const CASE_COLUMNS = {
   id: 'c.id',
@@ -27,52 +29,49 @@ const CASE_COLUMNS = {
   resolvedAt: 'c.resolved_at',
 } as const;
 
-export type CaseListItem = Pick<CaseRow, 'id' | 'reference' | 'title' | 'status' | 'bands' | 'createdAt' | 'updatedAt'> & {
-  assigneeName: string | null;
-};
-
-export type CaseFilter = { status?: CaseStatus; assigneeId?: string; band?: string; q?: string };
-
-/**
- * Cases the viewer may see: coordinators and admins all, hunters those assigned to them,
- * members their own reports. The reporter's position is never part of a list row.
- */
-export async function listCasesFor(viewer: { id: string; role: Role }, filter: CaseFilter, paging: Paging): Promise<Page<CaseListItem>> {
-  const base = db('cases as c').leftJoin('users as a', 'a.id', 'c.assignee_id');
-  if (viewer.role === 'hunter') base.where('c.assignee_id', viewer.id);
-  if (viewer.role === 'member') base.where('c.reporter_id', viewer.id);
-  if (filter.status) base.where('c.status', filter.status);
-  if (filter.assigneeId) base.where('c.assignee_id', filter.assigneeId);
-  if (filter.band) base.whereRaw('? = any(c.bands)', [filter.band]);
-  if (filter.q) {
-    const like = `%${filter.q.replace(/[\\%_]/g, (m) => `\\${m}`)}%`;
-    base.where((w) => w.whereILike('c.title', like).orWhereILike('c.reference', like).orWhereILike('c.description', like));
-  }
-  const [{ count }] = await base.clone().count<{ count: string }[]>({ count: 'c.id' });
-  const items = await base
-    .select({
-      id: CASE_COLUMNS.id,
-      reference: CASE_COLUMNS.reference,
-      title: CASE_COLUMNS.title,
-      status: CASE_COLUMNS.status,
-      bands: CASE_COLUMNS.bands,
-      createdAt: CASE_COLUMNS.createdAt,
-      updatedAt: CASE_COLUMNS.updatedAt,
-      assigneeName: 'a.name',
-    })
-    .orderBy('c.updated_at', 'desc')
-    .limit(paging.pageSize)
-    .offset((paging.page - 1) * paging.pageSize);
-  return { items, total: Number(count), ...paging };
-}
+type Viewer = { id: string; role: Role };
 
 export async function getCase(id: string, q: Knex = db): Promise<CaseRow | undefined> {
   return q('cases as c').select(CASE_COLUMNS).where('c.id', id).first();
 }
 
-/** The case row locked for the rest of the transaction (serialises writers on one case). */
+/** The case row locked for the rest of the transaction (serialises writers on one case). For the worker; requests use lockVisibleCase. */
 export async function lockCase(trx: Knex.Transaction, id: string): Promise<CaseRow | undefined> {
   return trx('cases as c').select(CASE_COLUMNS).where('c.id', id).forUpdate().first();
+}
+
+/** The case if `viewer` has `right` on it (the access rule as a query), else undefined. */
+export async function getCaseWithRight(q: Knex, viewer: Viewer, id: string, right: CaseRight = 'view'): Promise<CaseRow | undefined> {
+  return whereCaseRight(q('cases as c').select(CASE_COLUMNS).where('c.id', id), viewer, right).first();
+}
+
+/** The same, locked for the rest of the transaction: who may see it is decided on the locked row. */
+export async function lockCaseWithRight(trx: Knex.Transaction, viewer: Viewer, id: string, right: CaseRight = 'view'): Promise<CaseRow | undefined> {
+  return whereCaseRight(trx('cases as c').select(CASE_COLUMNS).where('c.id', id), viewer, right).forUpdate().first();
+}
+
+/** Name, call sign and e-mail of the people a case names (assignee, reporter). */
+export async function casePeople(q: Knex, ids: (string | null)[]): Promise<{ id: string; name: string; callSign: string | null; email: string }[]> {
+  const wanted = ids.filter((x): x is string => !!x);
+  if (wanted.length === 0) return [];
+  return q('users').select({ id: 'id', name: 'name', callSign: 'call_sign', email: 'email' }).whereIn('id', wanted);
+}
+
+/** Reference and title of the cases a case points at (merged into, possible duplicate of). */
+export async function caseRefs(q: Knex, ids: (string | null)[]): Promise<{ id: string; reference: string; title: string }[]> {
+  const wanted = ids.filter((x): x is string => !!x);
+  if (wanted.length === 0) return [];
+  return q('cases').select('id', 'reference', 'title').whereIn('id', wanted);
+}
+
+/** The newest comment in which someone confirmed the premises, if any. */
+export async function latestPremisesConfirmation(q: Knex, caseId: string): Promise<{ id: string; actorId: string | null } | undefined> {
+  const row = await q('case_events')
+    .where({ case_id: caseId, kind: 'comment' })
+    .whereRaw("(data->>'premisesConfirmed')::boolean is true")
+    .orderBy('id', 'desc')
+    .first('id', 'actor_id');
+  return row && { id: String(row.id), actorId: row.actor_id };
 }
 
 /** Who last changed a case and how, for a plain 409 message. */

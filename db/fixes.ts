@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { db } from './index';
-import type { Fix } from '@/lib/df';
+import { normalizeFix, type Fix } from '@/lib/df';
 
 export type FixSnapshotRow = { id: string; caseId: string; cause: string; lineCount: number; ok: boolean; lat: number | null; lon: number | null; semiMajorM: number | null; result: Fix; createdAt: Date };
 
@@ -32,8 +32,10 @@ export async function insertFixSnapshot(trx: Knex.Transaction, caseId: string, c
   });
 }
 
+/** The newest snapshot; its result is brought to the current Fix shape (older snapshots still render). */
 export async function latestFixSnapshot(caseId: string, q: Knex = db): Promise<FixSnapshotRow | undefined> {
-  return q('fix_snapshots').select(COLUMNS).where({ case_id: caseId }).orderBy('id', 'desc').first();
+  const row: FixSnapshotRow | undefined = await q('fix_snapshots').select(COLUMNS).where({ case_id: caseId }).orderBy('id', 'desc').first();
+  return row ? { ...row, result: normalizeFix(row.result) } : undefined;
 }
 
 /** Every snapshot, oldest first, without the full result (the convergence trail). */

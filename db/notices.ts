@@ -1,8 +1,10 @@
 import type { Knex } from 'knex';
 import { db } from './index';
 import type { TemplateKey, PlaceholderValues } from '@/lib/notices/templates';
+import { whereCaseRight } from './case-scope';
+import type { Role } from './types';
 
-export const NOTICE_STATUSES = ['draft', 'approved', 'queued', 'sent', 'failed', 'hand-delivered', 'cancelled'] as const;
+export const NOTICE_STATUSES = ['draft', 'approved', 'queued', 'sent', 'failed', 'hand-delivered'] as const;
 export type NoticeStatus = (typeof NOTICE_STATUSES)[number];
 /** Statuses that hold the household's one place on a case (the partial unique index). */
 export const ACTIVE_STATUSES: NoticeStatus[] = ['draft', 'approved', 'queued', 'failed'];
@@ -112,18 +114,26 @@ export async function activeNoticeAt(q: Knex, caseId: string, key: string, exclu
     .first();
 }
 
-/** Open notices to the same household on other cases that are not resolved: the composer warns about them. */
-export async function noticesAtAddressElsewhere(key: string, caseId: string, q: Knex = db): Promise<{ caseId: string; reference: string; title: string; status: NoticeStatus }[]> {
+/**
+ * Open notices to the same household on other unresolved cases that `viewer` may see: the
+ * composer warns about them (the routes ask only for the committee, who see every case).
+ */
+export async function noticesAtAddressElsewhere(
+  viewer: { id: string; role: Role },
+  key: string,
+  caseId: string,
+  q: Knex = db,
+): Promise<{ caseId: string; reference: string; title: string; status: NoticeStatus }[]> {
   if (!key) return [];
-  return q('notices as n')
+  const b = q('notices as n')
     .join('cases as c', 'c.id', 'n.case_id')
     .distinctOn('c.id')
     .select({ caseId: 'c.id', reference: 'c.reference', title: 'c.title', status: 'n.status' })
     .where('n.address_key', key)
     .whereNot('n.case_id', caseId)
-    .whereNot('n.status', 'cancelled')
     .whereNot('c.status', 'resolved')
     .orderBy([{ column: 'c.id' }, { column: 'n.created_at', order: 'desc' }]);
+  return whereCaseRight(b, viewer, 'view');
 }
 
 export async function insertNotice(
@@ -195,4 +205,35 @@ export async function answersInLastHour(q: Knex, by: { noticeId?: string; client
 
 export async function listAnswers(noticeId: string, q: Knex = db): Promise<{ kind: AnswerKind; createdAt: Date }[]> {
   return q('notice_answers').select({ kind: 'kind', createdAt: 'created_at' }).where('notice_id', noticeId).orderBy('id');
+}
+
+/** First notices that got no answer within the club's reminder days on a notified case, not yet checked. */
+export async function dueForReminder(q: Knex, reminderDays: number, limit: number): Promise<{ id: string; caseId: string }[]> {
+  return q('notices as n')
+    .join('cases as c', 'c.id', 'n.case_id')
+    .select({ id: 'n.id', caseId: 'n.case_id' })
+    .whereIn('n.status', ['sent', 'hand-delivered'])
+    .where('n.template_key', 'first-notice')
+    .whereNull('n.reminder_checked_at')
+    .where('c.status', 'notified')
+    .whereRaw('coalesce(n.sent_at, n.delivered_on::timestamptz) < now() - make_interval(days => ?)', [reminderDays])
+    .whereNotExists(q('notice_answers as a').whereRaw('a.notice_id = n.id'))
+    .orderBy('n.sent_at')
+    .limit(limit);
+}
+
+/** Marks a notice's reminder as checked; false when another worker got there first. */
+export async function markReminderChecked(trx: Knex.Transaction, id: string): Promise<boolean> {
+  return (await trx('notices').where({ id }).whereNull('reminder_checked_at').update({ reminder_checked_at: trx.fn.now() })) > 0;
+}
+
+/** When the notice a follow-up refers to went out (sent, delivered, or at least approved). */
+export async function firstNoticeDate(q: Knex, id: string): Promise<Date | string | null> {
+  const first = await q('notices').where({ id }).first('sent_at', 'delivered_on', 'approved_at');
+  return first ? (first.sent_at ?? first.delivered_on ?? first.approved_at) : null;
+}
+
+/** Who hears about answers and reminders besides the club's address: the active coordinators. */
+export async function activeCoordinatorEmails(q: Knex): Promise<string[]> {
+  return q('users').where({ role: 'coordinator', active: true }).pluck('email');
 }

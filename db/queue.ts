@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { db } from './index';
-import { scopeVisibleCases } from './case-scope';
+import { whereCaseRight } from './case-scope';
 import type { CaseStatus, Role } from './types';
 import type { QueueFilter, QueueQuery, QueueSort } from '@/lib/validation/queue';
 import { badRequest } from '@/lib/errors';
@@ -53,7 +53,7 @@ export type QueuePage = {
 
 /** The shared filters (queue, map, statistics, exports) on a cases query aliased `c`, inside the viewer's scope. */
 export function applyQueueFilter<B extends Knex.QueryBuilder>(b: B, viewer: Viewer, f: QueueFilter): B {
-  scopeVisibleCases(b, viewer);
+  whereCaseRight(b, viewer, 'view');
   if (f.status?.length === 1) b.where('c.status', f.status[0]);
   else if (f.status?.length) b.whereIn('c.status', f.status);
   if (f.assigneeId === 'none') b.whereNull('c.assignee_id');

@@ -127,3 +127,13 @@ export async function loopCircumferences(ids: string[], q: Knex = db): Promise<M
 export async function listActiveHunters(): Promise<{ id: string; name: string; callSign: string | null }[]> {
   return db('users').select({ id: 'id', name: 'name', callSign: 'call_sign' }).where({ active: true }).whereIn('role', ['hunter', 'coordinator', 'admin']).orderBy('name');
 }
+
+/** A user's row locked for a role change, with what the last-admin rule needs. */
+export async function lockUserForChange(trx: Knex.Transaction, id: string): Promise<Pick<User, 'id' | 'role' | 'active'> | undefined> {
+  return trx('users').where({ id }).forUpdate().first('id', 'role', 'active');
+}
+
+/** Serialises changes that could remove an admin, so two admins cannot demote each other at once. */
+export async function lockAdminChanges(trx: Knex.Transaction): Promise<void> {
+  await trx.raw('select pg_advisory_xact_lock(4711)');
+}

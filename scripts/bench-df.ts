@@ -13,13 +13,15 @@ function parkMiller(seed: number): () => number {
 
 const SOURCE = { lat: 47.5, lon: -30.25 };
 
-function scene(count: number, seed: number): LineOfBearing[] {
+/** Lines toward SOURCE with 3-degree noise; blunderShare of them bent by 20-90 degrees (reflections). */
+function scene(count: number, seed: number, blunderShare = 0): LineOfBearing[] {
   const rand = parkMiller(seed);
   const normal = () => Math.sqrt(-2 * Math.log(rand())) * Math.cos(2 * Math.PI * rand());
   return Array.from({ length: count }, (_, i) => {
     const obs = Geodesic.WGS84.Direct(SOURCE.lat, SOURCE.lon, rand() * 360, 200 + rand() * 4800);
     const inv = Geodesic.WGS84.Inverse(obs.lat2 as number, obs.lon2 as number, SOURCE.lat, SOURCE.lon);
-    return { id: `b${i}`, lat: obs.lat2 as number, lon: obs.lon2 as number, azimuthDeg: (inv.azi1 as number) + 3 * normal(), sigmaDeg: 3 };
+    const bend = rand() < blunderShare ? (rand() < 0.5 ? -1 : 1) * (20 + 70 * rand()) : 0;
+    return { id: `b${i}`, lat: obs.lat2 as number, lon: obs.lon2 as number, azimuthDeg: (inv.azi1 as number) + 3 * normal() + bend, sigmaDeg: 3 };
   });
 }
 
@@ -70,6 +72,34 @@ const miss = (p: { lat: number; lon: number }) => Geodesic.WGS84.Inverse(SOURCE.
 
 console.log('Quietfix bearing math, median of repeated runs');
 console.log(`estimateFix, 1,000 lines (incl. outlier test, 190 intersections): ${fixMs.toFixed(2)} ms  (target < 10 ms)`);
-console.log(`suggestNextSpots, 500 candidates (12 lines):                   ${spotsMs.toFixed(2)} ms  (target < 100 ms)`);
+console.log(`suggestNextSpots, 384 candidates x 5 sigma points (12 lines):   ${spotsMs.toFixed(2)} ms  (target < 100 ms)`);
 console.log(`plain pairwise intersections, all 499,500 pairs averaged:       ${pairMs.toFixed(2)} ms`);
 if (fix.ok) console.log(`miss from the true point: estimateFix ${miss(fix).toFixed(1)} m (95 % semi-major ${fix.ellipse.semiMajorM.toFixed(1)} m), pairwise mean ${miss(pair).toFixed(1)} m`);
+
+// Speed with blunders: clean vs 5 % reflections in the same run (ratio is the figure to watch)
+console.log('');
+console.log('clean vs 5 % blunders (20-90 degrees), same run; ratio = blunders / clean');
+const rows: { n: number; clean: number; blunder: number }[] = [];
+for (const n of [100, 1000, 4000]) {
+  const clean = scene(n, 21);
+  const dirty = scene(n, 21, 0.05);
+  const runs = n >= 4000 ? 9 : 21;
+  const cleanMs = medianMs(runs, () => estimateFix(clean));
+  const blunderMs = medianMs(runs, () => estimateFix(dirty));
+  rows.push({ n, clean: cleanMs, blunder: blunderMs });
+  const f = estimateFix(dirty);
+  const named = f.ok ? f.outlierIds.length : 0;
+  console.log(`  ${String(n).padStart(5)} lines: clean ${cleanMs.toFixed(2).padStart(8)} ms, 5 % blunders ${blunderMs.toFixed(2).padStart(8)} ms, ratio ${(blunderMs / cleanMs).toFixed(2)} (target <= 5 at 1,000); ${named} set aside, miss ${f.ok ? miss(f).toFixed(1) : '-'} m`);
+}
+const growth = rows[2].blunder / rows[1].blunder;
+console.log(`  growth 1,000 -> 4,000 lines with blunders: x${growth.toFixed(2)} (linear would be x4)`);
+const huge = scene(10_000, 23, 0.05);
+const hugeMs = medianMs(3, () => estimateFix(huge));
+console.log(`  10,000 lines with 5 % blunders: ${hugeMs.toFixed(0)} ms (the leave-one-out re-solve loop it replaces took about 24 s)`);
+
+// Small sets: exhaustive leave-k-out subsets
+const twelve = scene(12, 5, 0);
+twelve[3].azimuthDeg += 35; twelve[8].azimuthDeg -= 50;
+const twelveCleanMs = medianMs(51, () => estimateFix(scene(12, 5, 0)));
+const twelveMs = medianMs(51, () => estimateFix(twelve));
+console.log(`  12 lines: clean ${twelveCleanMs.toFixed(2)} ms, two reflections ${twelveMs.toFixed(2)} ms (exhaustive leave-k-out subsets, k <= 4)`);

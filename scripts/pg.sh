@@ -9,6 +9,8 @@
 source "$(dirname "$0")/lib.sh"
 
 as_pg() { if is_root; then (cd / && runuser -u postgres -- "$@"); else "$@"; fi; }
+running() { as_pg "$bin/pg_ctl" -D "$dir" status >/dev/null 2>&1; }
+ready() { "$bin/pg_isready" -q -t 2 -h 127.0.0.1 -p "$port"; }
 
 data_dir() {
   local name=$1 rec="$DATA/$1.path"
@@ -43,19 +45,25 @@ case "$cmd" in
         --encoding=UTF8 --locale=C.UTF-8 >"$DATA/$name-initdb.log" 2>&1 || { rm -f "$pw"; die "initdb failed (log: .data/$name-initdb.log)."; }
       rm -f "$pw"
     fi
-    if as_pg "$bin/pg_ctl" -D "$dir" status >/dev/null 2>&1 && "$bin/pg_isready" -q -h 127.0.0.1 -p "$port"; then
-      exit 0
-    fi
-    need_free_port "$port" "PostgreSQL" "DB_PORT"
+    # A cluster that is still starting up or shutting down (e.g. right after npm run stop) is
+    # waited for, up to 30 s, instead of being taken for a running one that then goes away.
+    end=$((SECONDS + 30))
+    while running && ! ready; do
+      [ "$SECONDS" -lt "$end" ] || die "PostgreSQL ($name) neither answers nor stops (log: $dir/server.log); try npm run stop."
+      sleep 0.25
+    done
+    if running && ready; then exit 0; fi
+    wait_port_free "$port" 10 || die "port $port (PostgreSQL) is already in use on 127.0.0.1: stop what uses it (npm run stop) or set DB_PORT to a free port."
     as_pg "$bin/pg_ctl" -D "$dir" -l "$dir/server.log" -w -t 30 \
       -o "-c listen_addresses=127.0.0.1 -p $port -c unix_socket_directories=/tmp -c fsync=${PG_FSYNC:-on}" start >/dev/null \
       || die "PostgreSQL did not start (log: $dir/server.log)."
-    for _ in $(seq 1 60); do "$bin/pg_isready" -q -h 127.0.0.1 -p "$port" && exit 0; sleep 0.25; done
+    end=$((SECONDS + 15))
+    while [ "$SECONDS" -lt "$end" ]; do ready && exit 0; sleep 0.25; done
     die "PostgreSQL started but does not answer on 127.0.0.1:$port (log: $dir/server.log)."
     ;;
   ensure-db)
     port=${3:?port}; db=${4:?db}; bin=$(pg_bin)
-    export PGPASSWORD="${DB_PASSWORD:-quietfix-local}"
+    export PGPASSWORD="${DB_PASSWORD:-quietfix-local}" PGCONNECT_TIMEOUT=5
     q() { "$bin/psql" -X -q -h 127.0.0.1 -p "$port" -U "${DB_USER:-quietfix}" -d postgres -v ON_ERROR_STOP=1 -tAc "$1"; }
     if [ "${5:-}" = fresh ]; then q "DROP DATABASE IF EXISTS \"$db\" WITH (FORCE)" >/dev/null; fi
     [ "$(q "SELECT 1 FROM pg_database WHERE datname = '$db'")" = 1 ] || q "CREATE DATABASE \"$db\"" >/dev/null || die "could not create database $db."
@@ -65,8 +73,13 @@ case "$cmd" in
     rec="$DATA/$name.path"
     [ -f "$rec" ] || exit 0
     dir=$(cat "$rec")
-    if [ -s "$dir/PG_VERSION" ] && as_pg "$bin/pg_ctl" -D "$dir" status >/dev/null 2>&1; then
-      as_pg "$bin/pg_ctl" -D "$dir" -m fast -w stop >/dev/null && say "stopped PostgreSQL ($name)."
+    [ -s "$dir/PG_VERSION" ] && running || exit 0
+    # Returns only once the server is gone (-w, bounded by -t); a fast stop that hangs becomes an immediate one.
+    if as_pg "$bin/pg_ctl" -D "$dir" -m fast -w -t 30 stop >/dev/null 2>&1 \
+      || as_pg "$bin/pg_ctl" -D "$dir" -m immediate -w -t 15 stop >/dev/null 2>&1 || ! running; then
+      say "stopped PostgreSQL ($name)."
+    else
+      die "PostgreSQL ($name) did not stop within 45 s (log: $dir/server.log)."
     fi
     ;;
   *) die "unknown command $cmd" ;;

@@ -1,14 +1,14 @@
 /** Seeds the demo scenario into the configured database, once: an existing user list is left alone. */
 import { db } from '../db/index';
-import { DEMO_SOURCES, seedDemo } from '../db/seeds/demo';
+import { alreadySeeded, DEMO_SOURCES, seedDemo } from '../db/seeds/demo';
 import { seedDemoTown } from '../db/seeds/demo-town';
 import { countPlaces } from '../db/places';
+import { getUserByEmail } from '../db/users';
 
 async function main() {
-  const [{ count }] = await db('users').count<{ count: string }[]>({ count: '*' });
-  if (Number(count) > 0) {
+  if (await alreadySeeded(db)) {
     // A database seeded before the places layer existed gets the demo town once.
-    if ((await countPlaces('demo')).buildings === 0 && (await db('users').where({ email: 'chair@example.test' }).first())) {
+    if ((await countPlaces('demo')).buildings === 0 && (await getUserByEmail('chair@example.test'))) {
       await db.transaction((trx) => seedDemoTown(trx, DEMO_SOURCES.open, DEMO_SOURCES.located));
       console.log('quietfix: demo town added.');
     }

@@ -17,13 +17,25 @@ HOSTNAME_BIND="${HOST:-127.0.0.1}"
 
 catcher_pid=""; app_pid=""; worker_pid=""; pg_started=0
 cleanup() {
+  local rc=$?
   trap - INT TERM EXIT
+  quiet_if_failed "$rc"
   say "stopping…"
-  kill_group "$app_pid"; kill_group "$catcher_pid"; kill_group "$worker_pid"
+  # Returns once the app, catcher, worker and (if started here) the cluster are gone.
+  # shellcheck disable=SC2086
+  stop_groups 10 $app_pid $catcher_pid $worker_pid || true
   [ "$pg_started" = 1 ] && bash "$ROOT/scripts/pg.sh" down pg || true
   rm -f "$DATA/start.pids"
+  exit "$rc"
 }
+
+# An earlier npm start still running: say so. One that died may have left processes: stop them and wait until they are gone.
+if [ -f "$DATA/start.pids" ] && pid_alive "$(sed -n 1p "$DATA/start.pids")"; then
+  die "Quietfix is already running (pid $(sed -n 1p "$DATA/start.pids")): stop it with Ctrl-C or npm run stop first."
+fi
+stop_from_pids "$DATA/start.pids"
 trap cleanup INT TERM EXIT
+write_pids "$DATA/start.pids"  # from now on npm run stop can find and stop this run
 
 need_free_port "$PORT" "the web app" "PORT"
 ensure_node_modules
@@ -41,6 +53,7 @@ if [ -n "$MAIL_CATCHER_URL" ]; then
   need_free_port "$CATCHER_SMTP_PORT" "mail catcher SMTP" "CATCHER_SMTP_PORT"
   need_free_port "$CATCHER_HTTP_PORT" "mail catcher API" "CATCHER_HTTP_PORT"
   catcher_pid=$(spawn "$DATA/mail-catcher.log" node --import tsx scripts/mail-catcher.ts)
+  write_pids "$DATA/start.pids" "$catcher_pid"
   wait_http "$MAIL_CATCHER_URL/" 20 || die "the mail catcher did not start (log: .data/mail-catcher.log)."
 fi
 
@@ -48,7 +61,7 @@ ensure_build
 app_pid=$(spawn "$DATA/app.log" env NODE_ENV=production node --import tsx scripts/serve.ts -p "$PORT" -H "$HOSTNAME_BIND")
 # Delivers queued notices and alerts (retries, reminders); see lib/notices/README.md.
 worker_pid=$(spawn "$DATA/outbox-worker.log" node --import tsx scripts/outbox-worker.ts)
-echo "$app_pid $catcher_pid $worker_pid" >"$DATA/start.pids"
+write_pids "$DATA/start.pids" "$app_pid" "$catcher_pid" "$worker_pid"
 wait_http "http://127.0.0.1:$PORT/api/health" 60 || { tail -n 20 "$DATA/app.log" >&2; die "the app did not become healthy (log: .data/app.log)."; }
 
 cat <<TXT
@@ -63,6 +76,6 @@ cat <<TXT
   Logs in .data/*.log. Press Ctrl-C to stop.
 
 TXT
-# Keep running until the app exits or Ctrl-C.
-while kill -0 "$app_pid" 2>/dev/null; do sleep 1; done
+# Keep running until the app exits, Ctrl-C or npm run stop (the one wait without a bound: the server's life).
+while group_alive "$app_pid"; do sleep 1; done
 say "the app stopped (see .data/app.log)."

@@ -19,12 +19,22 @@ export QUIETFIX_TEST_PG=pg-test
 
 catcher_pid=""; app_pid=""; app_b_pid=""; worker_pid=""
 cleanup() {
+  local rc=$?
   trap - INT TERM EXIT
-  kill_group "$app_pid"; kill_group "$app_b_pid"; kill_group "$catcher_pid"; kill_group "$worker_pid"
+  quiet_if_failed "$rc"
+  stop_step
+  # shellcheck disable=SC2086
+  stop_groups 10 $app_pid $app_b_pid $catcher_pid $worker_pid || true
   bash "$ROOT/scripts/pg.sh" down pg-test >/dev/null 2>&1 || true
   rm -f "$DATA/test.pids"
+  exit "$rc"
 }
+if [ -f "$DATA/test.pids" ] && pid_alive "$(sed -n 1p "$DATA/test.pids")"; then
+  die "a test run is already going on in this checkout (pid $(sed -n 1p "$DATA/test.pids")): wait for it or run npm run stop."
+fi
+stop_from_pids "$DATA/test.pids"
 trap cleanup INT TERM EXIT
+write_pids "$DATA/test.pids"  # from now on npm run stop can find and stop this run
 
 need_free_port "$TEST_PORT" "the test app" "TEST_PORT"
 need_free_port "$TEST_PORT_B" "the second test app instance" "TEST_PORT_B"
@@ -40,27 +50,28 @@ node --import tsx scripts/seed.ts || die "seeding the test database failed."
 
 rc=0
 say "unit tests (Vitest)…"
-npx vitest run --project unit || rc=1
+run_step npx vitest run --project unit || rc=1
 
 rm -f "$CATCHER_STORE"
 catcher_pid=$(spawn "$DATA/mail-catcher-test.log" node --import tsx scripts/mail-catcher.ts)
+write_pids "$DATA/test.pids" "$catcher_pid"
 ensure_build
 # The app trusts 127.0.0.9 as a reverse proxy (tests act as that proxy to check the right-most rule).
 app_pid=$(spawn "$DATA/app-test.log" env NODE_ENV=production TRUSTED_PROXY=127.0.0.9 node --import tsx scripts/serve.ts -p "$TEST_PORT" -H 127.0.0.1)
 app_b_pid=$(spawn "$DATA/app-test-b.log" env NODE_ENV=production TRUSTED_PROXY=127.0.0.9 node --import tsx scripts/serve.ts -p "$TEST_PORT_B" -H 127.0.0.1)
 # The outbox worker, polling often so tests see mail quickly; short backoff and lease for outage tests.
 worker_pid=$(spawn "$DATA/outbox-worker-test.log" env OUTBOX_POLL_MS=300 OUTBOX_BACKOFF_BASE_MS=500 OUTBOX_LEASE_MS=5000 node --import tsx scripts/outbox-worker.ts)
-echo "$app_pid $app_b_pid $catcher_pid $worker_pid" >"$DATA/test.pids"
+write_pids "$DATA/test.pids" "$app_pid" "$app_b_pid" "$catcher_pid" "$worker_pid"
 wait_http "$MAIL_CATCHER_URL/" 20 || die "the test mail catcher did not start (log: .data/mail-catcher-test.log)."
 wait_http "$TEST_BASE_URL/api/health" 60 || { tail -n 20 "$DATA/app-test.log" >&2; die "the test app did not become healthy (log: .data/app-test.log)."; }
 wait_http "$TEST_BASE_URL_B/api/health" 60 || { tail -n 20 "$DATA/app-test-b.log" >&2; die "the second test app instance did not become healthy (log: .data/app-test-b.log)."; }
 
 say "integration tests (Vitest, real PostgreSQL and SMTP)…"
-npx vitest run --project integration || rc=1
+run_step npx vitest run --project integration || rc=1
 
 ensure_chromium
 say "end-to-end tests (Playwright, Debian's chromium)…"
-npx playwright test || rc=1
+run_step npx playwright test || rc=1
 
 [ "$rc" = 0 ] && say "all suites passed." || say "some suites failed (see above)."
 exit "$rc"

@@ -23,17 +23,14 @@ export const BASE_ERROR_FIELDS: Record<string, string> = {
 };
 
 /**
- * Turns the form's setError into the setter useHuntSubmit wants: "samples[2].level" and
- * "samples.2.level" both land on samples.2.level; a path whose first part the form does not show
- * returns false so the message is shown with the general error.
+ * The field that shows a server issue at a dotted path ("samples.2.level" lands on samples.2.level,
+ * "lon" on the position), or null for a path whose first part the form does not show (it is then
+ * shown with the general message). For useApiForm's fieldFor.
  */
-export function serverErrorSetter(setError: (name: never, error: { type: string; message: string }) => void, fields: Record<string, string>) {
-  return (path: string, message: string): boolean => {
-    const dotted = path.replace(/\[(\d+)\]/g, '.$1');
-    const [top, ...rest] = dotted.split('.');
+export function huntFieldFor(fields: Record<string, string>) {
+  return (path: string): string | null => {
+    const [top, ...rest] = path.split('.');
     const target = fields[top];
-    if (!target) return false;
-    setError((rest.length ? [target, ...rest].join('.') : target) as never, { type: 'server', message });
-    return true;
+    return target ? [target, ...rest].join('.') : null;
   };
 }

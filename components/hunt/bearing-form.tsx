@@ -1,25 +1,19 @@
 'use client';
 
-import { FormProvider, useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
+import { FormProvider } from 'react-hook-form';
 import { TextField } from '@/components/ui/text-field';
 import type { BearingView, CaseDetail, FixView } from '@/lib/hunt/views';
 import { bearingInputSchema } from '@/lib/validation/bearings';
-import { BASE_ERROR_FIELDS, serverErrorSetter } from './base-fields';
+import { BASE_ERROR_FIELDS } from './base-fields';
 import { ReferenceField } from './common-bearing-fields';
 import { CompassReader } from './compass-reader';
 import { NoHuntRights } from './form-sheet-parts';
 import { FormTail } from './form-tail';
 import { NullSharpnessField } from './null-sharpness-field';
 import { parseDecimal } from './number-text';
-import { plainZodErrors } from './plain-zod-errors';
 import { PositionField } from './position-field';
 import { TrueAzimuthPreview } from './true-azimuth-preview';
-import { useHuntSubmit } from './use-hunt-submit';
-
-type In = z.input<typeof bearingInputSchema>;
-type Out = z.output<typeof bearingInputSchema>;
+import { useHuntForm } from './use-hunt-form';
 
 const ERROR_FIELDS = { ...BASE_ERROR_FIELDS, azimuthDeg: 'azimuthDeg', sigmaDeg: 'sigmaDeg', nullWidthDeg: 'nullWidthDeg', quality: 'quality' };
 
@@ -35,20 +29,17 @@ export type BearingFormProps = {
 
 /** Adding one null bearing: where you stand, the azimuth (typed or from the compass), how sharp the null was. */
 export function BearingForm({ caseId, caseDetail, defaultFrequencyKhz, selectedPosition, onSaved }: BearingFormProps) {
-  const methods = useForm<In, unknown, Out>({
-    resolver: zodResolver(bearingInputSchema, { error: plainZodErrors }),
+  const { form: methods, submit, problem, pending, resend } = useHuntForm<typeof bearingInputSchema, { bearing: BearingView; fix: FixView }>(bearingInputSchema, {
+    url: `/api/cases/${caseId}/bearings`,
     defaultValues: { reference: 'magnetic', quality: 'fair', oneWay: false, note: '', accuracyConfirmed: false, frequencyKhz: defaultFrequencyKhz },
-  });
-  const { register, handleSubmit, setValue, watch, formState, setError, getValues, reset } = methods;
-  const { state, send, confirmAnyway } = useHuntSubmit<{ bearing: BearingView; fix: FixView }>(
-    `/api/cases/${caseId}/bearings`,
-    () => {
+    errorFields: ERROR_FIELDS,
+    onSaved: () => {
       // Ready for the next bearing: position, reference and frequency stay.
-      reset({ ...getValues(), azimuthDeg: undefined as unknown as number, nullWidthDeg: undefined, note: '', accuracyConfirmed: false });
+      methods.reset({ ...methods.getValues(), azimuthDeg: undefined as unknown as number, nullWidthDeg: undefined, note: '', accuracyConfirmed: false });
       onSaved();
     },
-    serverErrorSetter(setError as never, ERROR_FIELDS),
-  );
+  });
+  const { register, setValue, watch, formState } = methods;
 
   if (!caseDetail.can.hunt) return <NoHuntRights />;
 
@@ -59,7 +50,7 @@ export function BearingForm({ caseId, caseDetail, defaultFrequencyKhz, selectedP
 
   return (
     <FormProvider {...methods}>
-      <form noValidate aria-label="Add a bearing" className="space-y-4" onSubmit={handleSubmit((data) => send({ ...data }))}>
+      <form noValidate aria-label="Add a bearing" className="space-y-4" onSubmit={submit}>
         <PositionField caseId={caseId} maxAccuracyM={caseDetail.maxPositionAccuracyM} selectedPosition={selectedPosition} mapCenter={caseDetail.reportedPosition} />
         <div className="space-y-2">
           <TextField
@@ -82,7 +73,7 @@ export function BearingForm({ caseId, caseDetail, defaultFrequencyKhz, selectedP
         <ReferenceField />
         <TrueAzimuthPreview azimuthDeg={typeof azimuth === 'number' ? azimuth : undefined} reference={watch('reference')} position={position} />
         <NullSharpnessField />
-        <FormTail idPrefix="bearing" state={state} onConfirm={() => void confirmAnyway()} saveLabel="Save bearing" />
+        <FormTail idPrefix="bearing" problem={problem} pending={pending} onConfirm={() => void resend({ accuracyConfirmed: true })} saveLabel="Save bearing" />
       </form>
     </FormProvider>
   );

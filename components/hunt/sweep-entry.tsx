@@ -1,27 +1,24 @@
 'use client';
 
 import { useMemo } from 'react';
-import { FormProvider, useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
+import { FormProvider } from 'react-hook-form';
 import type { z } from 'zod';
 import { fitNullSweep, sUnitsToDbm } from '@/lib/df';
 import type { BearingView, FixView } from '@/lib/hunt/views';
 import { sweepInputSchema } from '@/lib/validation/bearings';
-import { BASE_ERROR_FIELDS, serverErrorSetter } from './base-fields';
+import { BASE_ERROR_FIELDS } from './base-fields';
 import type { BearingFormProps } from './bearing-form';
 import { ChoiceButtons } from './choice-buttons';
 import { ReferenceField } from './common-bearing-fields';
 import { NoHuntRights } from './form-sheet-parts';
 import { FormTail } from './form-tail';
-import { plainZodErrors } from './plain-zod-errors';
 import { PositionField } from './position-field';
 import { SweepPolarPlot } from './sweep-polar-plot';
 import { SweepReadingsTable } from './sweep-readings-table';
 import { TrueAzimuthPreview } from './true-azimuth-preview';
-import { useHuntSubmit } from './use-hunt-submit';
+import { useHuntForm } from './use-hunt-form';
 
 type In = z.input<typeof sweepInputSchema>;
-type Out = z.output<typeof sweepInputSchema>;
 
 const ERROR_FIELDS = { ...BASE_ERROR_FIELDS, samples: 'samples', levelUnit: 'samples' };
 
@@ -35,12 +32,13 @@ const UNITS = [
 
 /** A rotation sweep: levels read at several loop angles, fitted for the null, saved as a bearing. */
 export function SweepEntry({ caseId, caseDetail, defaultFrequencyKhz, selectedPosition, onSaved }: BearingFormProps) {
-  const methods = useForm<In, unknown, Out>({
-    resolver: zodResolver(sweepInputSchema, { error: plainZodErrors }),
+  const { form: methods, submit, problem, pending, resend } = useHuntForm<typeof sweepInputSchema, { bearing: BearingView; fix: FixView }>(sweepInputSchema, {
+    url: `/api/cases/${caseId}/sweeps`,
     defaultValues: { reference: 'magnetic', levelUnit: 'dBm', samples: [], oneWay: false, note: '', accuracyConfirmed: false, frequencyKhz: defaultFrequencyKhz },
+    errorFields: ERROR_FIELDS,
+    onSaved: () => onSaved(),
   });
-  const { handleSubmit, watch, setValue, setError } = methods;
-  const { state, send, confirmAnyway } = useHuntSubmit<{ bearing: BearingView; fix: FixView }>(`/api/cases/${caseId}/sweeps`, () => onSaved(), serverErrorSetter(setError as never, ERROR_FIELDS));
+  const { watch, setValue } = methods;
 
   const unit = watch('levelUnit') ?? 'dBm';
   const frequencyKhz = watch('frequencyKhz');
@@ -64,7 +62,7 @@ export function SweepEntry({ caseId, caseDetail, defaultFrequencyKhz, selectedPo
 
   return (
     <FormProvider {...methods}>
-      <form noValidate aria-label="Add a sweep" className="space-y-4" onSubmit={handleSubmit((data) => send({ ...data }))}>
+      <form noValidate aria-label="Add a sweep" className="space-y-4" onSubmit={submit}>
         <PositionField caseId={caseId} maxAccuracyM={caseDetail.maxPositionAccuracyM} selectedPosition={selectedPosition} mapCenter={caseDetail.reportedPosition} />
         <ReferenceField legend="Loop angles measured from" />
         <ChoiceButtons
@@ -91,7 +89,7 @@ export function SweepEntry({ caseId, caseDetail, defaultFrequencyKhz, selectedPo
           </p>
           {okFit && <TrueAzimuthPreview azimuthDeg={okFit.nullAzimuthDeg} reference={reference} position={position} what="The bearing will be" />}
         </section>
-        <FormTail idPrefix="sweep" state={state} onConfirm={() => void confirmAnyway()} saveLabel="Save sweep" />
+        <FormTail idPrefix="sweep" problem={problem} pending={pending} onConfirm={() => void resend({ accuracyConfirmed: true })} saveLabel="Save sweep" />
       </form>
     </FormProvider>
   );

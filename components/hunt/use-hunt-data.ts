@@ -12,7 +12,7 @@ export const HUNT_REFRESH_MS = 5000;
 export function useHuntData(caseId: string, opts: { seeHunt?: boolean } = {}) {
   const seeHunt = opts.seeHunt ?? true;
   const caseQ = useSWR<CaseDetail>(`/api/cases/${caseId}`, fetchJson, { refreshInterval: HUNT_REFRESH_MS, revalidateOnFocus: true });
-  const bearingsQ = useSWR<Page<BearingView>>(seeHunt ? `/api/cases/${caseId}/bearings?pageSize=100` : null, fetchJson, {
+  const bearingsQ = useSWR<Page<BearingView>>(seeHunt ? `/api/cases/${caseId}/bearings` : null, fetchJson, {
     refreshInterval: HUNT_REFRESH_MS,
     revalidateOnFocus: true,
   });

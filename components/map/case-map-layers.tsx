@@ -60,7 +60,13 @@ function EllipseShape({ center, ellipse, alternative }: { center: LatLon; ellips
   );
 }
 
-/** Pairwise crossings, the fix with its 95 % ellipse, and the without-outliers alternative. */
+/** The likelihood-ratio region of a fix in poor geometry ([lon, lat] ring from lib/df), drawn like the ellipse. */
+function RegionShape({ ring }: { ring: [number, number][] }) {
+  const positions = useMemo(() => ring.map(([lon, lat]) => [lat, lon] as [number, number]), [ring]);
+  return <Polygon positions={positions} className="qf-ellipse qf-region" pathOptions={LINE_STYLES.ellipse} interactive={false} />;
+}
+
+/** Pairwise crossings, the fix with its 95 % ellipse (or region), and the all-lines alternative. */
 export function FixLayers({ fix }: { fix: FixView }) {
   const f = fix.current?.fix;
   if (!f || !f.ok) return null;
@@ -70,14 +76,15 @@ export function FixLayers({ fix }: { fix: FixView }) {
       {f.intersections.map((x, i) => (
         <Marker key={`x${i}-${x.ids.join('-')}`} position={[x.lat, x.lon]} icon={crossIcon} interactive={false} keyboard={false} />
       ))}
-      {f.withoutOutliers && (
+      {f.allLines && (
         <>
-          <EllipseShape center={f.withoutOutliers} ellipse={f.withoutOutliers.ellipse} alternative />
-          <Marker position={[f.withoutOutliers.lat, f.withoutOutliers.lon]} icon={fixIcon(true)} keyboard={false} title={`Fix without the outliers, ellipse ${semi}`} />
+          <EllipseShape center={f.allLines} ellipse={f.allLines.ellipse} alternative />
+          <Marker position={[f.allLines.lat, f.allLines.lon]} icon={fixIcon(true)} keyboard={false} title={`Fix with every line, ellipse ${formatApproxMetres(f.allLines.ellipse.semiMajorM)}`} />
         </>
       )}
-      <EllipseShape center={f} ellipse={f.ellipse} alternative={false} />
-      <Marker position={[f.lat, f.lon]} icon={fixIcon(false)} keyboard={false} title={`Fix: 95 % ellipse semi-major ${semi}`} />
+      {f.region ? <RegionShape ring={f.region} /> : <EllipseShape center={f} ellipse={f.ellipse} alternative={false} />}
+      {/* above the next-spot targets (zIndexOffset 1000), so they never cover the fix */}
+      <Marker position={[f.lat, f.lon]} icon={fixIcon(false)} keyboard={false} zIndexOffset={2000} title={`Fix: 95 % ellipse semi-major ${semi}`} />
     </>
   );
 }

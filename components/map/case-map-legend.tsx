@@ -10,7 +10,7 @@ const TEXT: Record<LegendKey, string> = {
   cross: 'two lines cross',
   fix: 'fix',
   ellipse: '95 % error ellipse',
-  alternative: 'fix without outliers',
+  alternative: 'fix with every line',
   trail: 'earlier fixes',
   spot: 'next spot (expected ellipse)',
   reporter: 'reporter (private)',

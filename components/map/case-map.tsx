@@ -59,7 +59,7 @@ export default function CaseMap({ bearings, fix, reportedPosition, selectedPosit
   if (bearings.length) legend.push('observer');
   if (okFix?.intersections.length) legend.push('cross');
   if (okFix) legend.push('fix', 'ellipse');
-  if (okFix?.withoutOutliers) legend.push('alternative');
+  if (okFix?.allLines) legend.push('alternative');
   if (fix?.trail.some((t) => t.ok && t.lat !== null)) legend.push('trail');
   if (spots.length) legend.push('spot');
   if (reportedPosition) legend.push('reporter');

@@ -3,8 +3,11 @@ import { hashPassword } from '@/lib/auth/password';
 import { appendEvent, insertCase } from '../cases';
 import { insertBearing } from '../bearings';
 import { recomputeFix } from '@/lib/hunt/fix';
-import { geodesicDirect, geodesicInverse } from '@/lib/df/internal/geodesy';
 import { seedDemoTown } from './demo-town';
+// GeographicLib itself (Karney 2013), not lib/df's internals: the seed only places invented spots.
+import geographiclib from 'geographiclib-geodesic';
+
+const WGS84 = geographiclib.Geodesic.WGS84;
 
 /**
  * The demo scenario: a fictional club in the fictional town of Quillon, placed on open,
@@ -38,8 +41,9 @@ async function seedBearings(
   spots: { fromSourceDeg: number; rangeM: number; errorDeg: number; sigmaDeg: number; frequencyKhz: number }[],
 ) {
   for (const [i, s] of spots.entries()) {
-    const o = geodesicDirect(source.lat, source.lon, s.fromSourceDeg, s.rangeM);
-    const az = (((geodesicInverse(o.lat, o.lon, source.lat, source.lon).azi1 + s.errorDeg) % 360) + 360) % 360;
+    const d = WGS84.Direct(source.lat, source.lon, s.fromSourceDeg, s.rangeM);
+    const o = { lat: d.lat2!, lon: d.lon2! };
+    const az = (((WGS84.Inverse(o.lat, o.lon, source.lat, source.lon).azi1! + s.errorDeg) % 360) + 360) % 360;
     const id = await insertBearing(trx, caseId, authorId, {
       lat: o.lat,
       lon: o.lon,
@@ -137,4 +141,10 @@ export async function seedDemo(trx: Knex.Transaction): Promise<void> {
     visibility: 'all',
   });
   await trx('cases').where({ id: resolved.id }).update({ outcome: 'fixed-by-owner', level_before_dbm: -85, level_after_dbm: -103, resolved_at: trx.fn.now() });
+}
+
+/** Whether the database already has people in it (then the demo is not seeded again). */
+export async function alreadySeeded(q: Knex): Promise<boolean> {
+  const [{ count }] = await q('users').count<{ count: string }[]>({ count: '*' });
+  return Number(count) > 0;
 }

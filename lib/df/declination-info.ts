@@ -2,6 +2,20 @@ import { calculateMagVarForDecimalYear, MODEL_EPOCH, MODEL_VALID_UNTIL } from 'm
 import { dateToDecimalYear } from './date-to-decimal-year';
 
 /**
+ * Runs fn with console.warn silenced: magvar prints its own validity notice once per process,
+ * and this library returns that notice as a value instead (no output from pure math).
+ */
+function quietly<T>(fn: () => T): T {
+  const warn = console.warn;
+  console.warn = () => {};
+  try {
+    return fn();
+  } finally {
+    console.warn = warn;
+  }
+}
+
+/**
  * Magnetic declination from the World Magnetic Model 2025 (NOAA NCEI / BGS), via the magvar
  * package (which rounds to 0.01 degree), with a plain-language warning when the date lies outside
  * the model's 2025.0-2030.0 validity window (the value is then an extrapolation) or an input is
@@ -17,8 +31,9 @@ export function declinationInfo(lat: number, lon: number, date: Date, altitudeKm
   if (![lat, lon, altitudeKm, year].every(Number.isFinite) || Math.abs(lat) > 90) {
     return { declinationDeg: NaN, warning: 'Declination needs a valid date, a latitude from -90 to 90 and a finite longitude and height.' };
   }
-  const declinationDeg = calculateMagVarForDecimalYear(year, lat, lon, altitudeKm);
-  if (year < MODEL_EPOCH || year >= MODEL_VALID_UNTIL) {
+  const outside = year < MODEL_EPOCH || year >= MODEL_VALID_UNTIL;
+  const declinationDeg = outside ? quietly(() => calculateMagVarForDecimalYear(year, lat, lon, altitudeKm)) : calculateMagVarForDecimalYear(year, lat, lon, altitudeKm);
+  if (outside) {
     return {
       declinationDeg,
       warning: `The World Magnetic Model 2025 is valid from ${MODEL_EPOCH} to ${MODEL_VALID_UNTIL}; for ${year.toFixed(2)} the declination is extrapolated and may be off by a degree or more.`,

@@ -1,4 +1,5 @@
 import { DEG, foldDeg180 } from './internal/angles';
+import { normalQuantile, studentTQuantile } from './internal/statistics';
 import type { NullSweepFit, SweepSample } from './types';
 
 const DB = 10 / Math.LN10;
@@ -133,7 +134,8 @@ function invert3(m: number[][]): number[][] | null {
  *
  * @param samples loop AXIS azimuth (degrees clockwise from true north; any range) and level (dBm)
  * @returns nullAzimuthDeg: the bearing line's azimuth, degrees in [0, 180);
- *   sigmaDeg: 1-sigma from the parameter covariance scaled by the residual variance, floor 0.5;
+ *   sigmaDeg: 1-sigma from the parameter covariance scaled by the residual variance and the
+ *   small-sample factor t(0.975, n - 3) / z(0.975), floor 0.5;
  *   nullDepthDb: model maximum over minimum, limited to the readings' span (+1 dB) unless the
  *   readings follow the model closely and pin the depth to 1 dB; rmsResidualDb: rms misfit in dB. ok:false when the sweep cannot
  *   give a null.
@@ -175,7 +177,10 @@ export function fitNullSweep(samples: SweepSample[]): NullSweepFit {
   if (!inv) {
     return { ok: false, reason: 'unconstrained', message: 'These readings do not pin the null down: add readings on both sides of it.' };
   }
-  const sigmaDeg = Math.sqrt(Math.max(variance * inv[0][0], 0)) / DEG;
+  // small samples: the residual variance is itself uncertain, so the sigma is scaled by
+  // t(0.975, dof) / z(0.975) (Student 1908), and a 95 % interval of +-1.96 sigma stays honest
+  const smallSample = dof > 0 ? studentTQuantile(0.975, dof) / normalQuantile(0.975) : 1;
+  const sigmaDeg = (smallSample * Math.sqrt(Math.max(variance * inv[0][0], 0))) / DEG;
   if (!(sigmaDeg <= SIGMA_CEILING_DEG)) {
     return { ok: false, reason: 'unconstrained', message: 'These readings do not pin the null down: add readings on both sides of it.' };
   }

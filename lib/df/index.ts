@@ -1,6 +1,7 @@
 /** Bearing math for locating radio-noise sources: pure functions, no I/O. */
-export type { LineOfBearing, Ellipse, Fix, FixOptions, NullSweepFit, SweepSample, NextSpot, NextSpotOptions } from './types';
+export type { LineOfBearing, Ellipse, Fix, FixEstimate, FixNotice, FixNoticeCode, FixOptions, NullSweepFit, SweepSample, NextSpot, NextSpotOptions } from './types';
 export { estimateFix } from './estimate-fix';
+export { normalizeFix } from './normalize-fix';
 export { declinationDeg } from './declination-deg';
 export { declinationInfo } from './declination-info';
 export { magneticToTrue } from './magnetic-to-true';
@@ -18,6 +19,7 @@ export { nearFieldRadiusM } from './near-field-radius-m';
 export { loopCircumferenceM, type LoopShape } from './loop-circumference-m';
 export { loopCheck, SMALL_LOOP_MAX_WAVELENGTHS } from './loop-check';
 export { manMadeNoiseFamDb, ITU_P372_NOISE, type NoiseEnvironment } from './man-made-noise-fam-db';
+export { manMadeNoiseInfo, P372_MIN_HZ, P372_MAX_HZ } from './man-made-noise-info';
 export { noisePowerDbm } from './noise-power-dbm';
 export { excessOverNoiseDb } from './excess-over-noise-db';
 export { nullWidthToSigmaDeg, NULL_SIGMA_PRESETS_DEG } from './null-width-to-sigma-deg';

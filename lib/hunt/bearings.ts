@@ -4,7 +4,7 @@ import { insertBearing, reviseBearing, type BearingFields, type BearingWithAutho
 import { appendEvent } from '@/db/cases';
 import { getProfile } from '@/db/users';
 import type { CaseRow, ClubSettings, User } from '@/db/types';
-import { declinationInfo, fitNullSweep, NULL_SIGMA_PRESETS_DEG, nullWidthToSigmaDeg, sUnitsToDbm } from '@/lib/df';
+import { declinationInfo, fitNullSweep, magneticToTrue, NULL_SIGMA_PRESETS_DEG, nullWidthToSigmaDeg, sUnitsToDbm } from '@/lib/df';
 import { AppError, conflict, forbidden } from '@/lib/errors';
 import type { bearingInputSchema, bearingPatchSchema, sweepInputSchema } from '@/lib/validation/bearings';
 import { caseAccess } from './access';
@@ -15,7 +15,6 @@ type BearingInput = z.output<typeof bearingInputSchema>;
 type BearingPatch = z.output<typeof bearingPatchSchema>;
 type SweepInput = z.output<typeof sweepInputSchema>;
 
-const norm360 = (deg: number) => ((deg % 360) + 360) % 360;
 const round = (x: number, places = 6) => Math.round(x * 10 ** places) / 10 ** places;
 
 /** 1-sigma in degrees: stated, else half the measured null width, else the sharp/fair/broad preset (default fair). */
@@ -25,12 +24,21 @@ export function resolveSigmaDeg(i: Pick<BearingInput, 'sigmaDeg' | 'nullWidthDeg
   return NULL_SIGMA_PRESETS_DEG[i.quality ?? 'fair'];
 }
 
-/** True azimuth from an entered one: magnetic bearings get the WMM2025 declination for the place and date. */
+/** An entered azimuth folded into [0, 360) (lib/df folds the same way inside magneticToTrue; it exports no fold of its own). */
+const foldDeg = (deg: number) => ((deg % 360) + 360) % 360;
+
+/**
+ * True azimuth from an entered one: a magnetic bearing goes through lib/df's magneticToTrue (the
+ * WMM2025 declination for the place and date), with the model's validity warning when the date is
+ * outside it; fixView repeats that warning for every magnetic line it applies to.
+ */
 export function trueAzimuth(enteredDeg: number, reference: 'true' | 'magnetic', lat: number, lon: number, when: Date) {
-  if (reference === 'true') return { declinationDeg: 0, azimuthTrueDeg: norm360(enteredDeg) };
-  const { declinationDeg } = declinationInfo(lat, lon, when);
-  return { declinationDeg: round(declinationDeg, 3), azimuthTrueDeg: round(norm360(enteredDeg + declinationDeg)) };
+  if (reference === 'true') return { declinationDeg: 0, azimuthTrueDeg: foldDeg(enteredDeg) };
+  const { declinationDeg, warning } = declinationInfo(lat, lon, when);
+  return { declinationDeg: round(declinationDeg, 3), azimuthTrueDeg: round(magneticToTrue(enteredDeg, lat, lon, when)), ...(warning ? { warning } : {}) };
 }
+
+const pickStored = (a: ReturnType<typeof trueAzimuth>) => ({ declinationDeg: a.declinationDeg, azimuthTrueDeg: a.azimuthTrueDeg });
 
 function assertAccuracy(accuracyM: number | undefined | null, confirmed: boolean, settings: Pick<ClubSettings, 'maxPositionAccuracyM'>) {
   if (accuracyM != null && accuracyM > settings.maxPositionAccuracyM && !confirmed) {
@@ -67,9 +75,10 @@ async function saveNewBearing(
     lon: p.lon,
     positionSource: p.positionSource,
     positionAccuracyM: p.positionAccuracyM ?? null,
-    azimuthEnteredDeg: norm360(line.enteredDeg),
+    azimuthEnteredDeg: foldDeg(line.enteredDeg),
     reference: line.reference,
-    ...az,
+    declinationDeg: az.declinationDeg,
+    azimuthTrueDeg: az.azimuthTrueDeg,
     sigmaDeg: line.sigmaDeg,
     nullWidthDeg: line.nullWidthDeg ?? null,
     frequencyKhz: p.frequencyKhz ?? null,
@@ -159,7 +168,7 @@ export async function editBearing(
     ...rest,
     takenAt,
     excluded,
-    ...(geometryChanged ? { azimuthEnteredDeg: norm360(entered), ...trueAzimuth(entered, reference, lat, lon, new Date(takenAt)) } : {}),
+    ...(geometryChanged ? { azimuthEnteredDeg: foldDeg(entered), ...pickStored(trueAzimuth(entered, reference, lat, lon, new Date(takenAt))) } : {}),
     ...(sigmaChanged ? { sigmaDeg: resolveSigmaDeg({ quality, sigmaDeg, nullWidthDeg }), nullWidthDeg: nullWidthDeg ?? null } : {}),
   };
   await reviseBearing(trx, before, user.id, fields);

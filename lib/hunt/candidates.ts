@@ -21,11 +21,11 @@ export type CandidatesView = {
 type OkFix = Extract<Fix, { ok: true }>;
 
 /**
- * The fix's 95 % region as a GeoJSON polygon: today the error ellipse (72 points); a fix that
- * carries its own region polygon can hand that in here instead, in one place.
+ * The fix's 95 % region as a GeoJSON polygon: lib/df's likelihood-ratio region when the fix
+ * carries one, otherwise the error ellipse (72 points).
  */
 export function fixRegion(fix: OkFix): Polygon {
-  const ring = ellipsePolygon(fix, fix.ellipse, 72).map(([lat, lon]) => [lon, lat]);
+  const ring = fix.region && fix.region.length >= 4 ? fix.region : ellipsePolygon(fix, fix.ellipse, 72).map(([lat, lon]) => [lon, lat]);
   return { type: 'Polygon', coordinates: [ring] };
 }
 

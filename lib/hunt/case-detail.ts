@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import { z } from 'zod';
 import { db } from '@/db';
-import { getCase } from '@/db/cases';
+import { caseRefs, casePeople, getCaseWithRight, lockCaseWithRight } from '@/db/cases';
 import { getClubSettings } from '@/db/settings';
 import type { CaseRow, User } from '@/db/types';
 import { notFound } from '@/lib/errors';
@@ -10,16 +10,28 @@ import type { CaseDetail, ReportData } from './views';
 
 export const caseIdSchema = z.object({ id: z.uuid('Not a case id.') });
 
+type Visible = { row: CaseRow; access: CaseAccess };
+const noSuchCase = () => notFound('No such case.');
+
 /**
- * The case if the user may see it. A case the user may not see is a plain 404, the same as a
- * missing one, so its existence is not revealed.
+ * The case if the user may see it (the access rule as a query), with what they may do on it.
+ * A case the user may not see is a plain 404, the same as a missing one, so its existence is not
+ * revealed. For reads; a write uses lockVisibleCase inside its transaction.
  */
-export async function loadVisibleCase(user: User, id: string, q: Knex = db): Promise<{ row: CaseRow; access: CaseAccess }> {
-  const row = await getCase(id, q);
-  if (!row) throw notFound('No such case.');
-  const access = caseAccess(user, row);
-  if (!access.view) throw notFound('No such case.');
-  return { row, access };
+export async function loadVisibleCase(user: User, id: string, q: Knex = db): Promise<Visible> {
+  const row = await getCaseWithRight(q, user, id, 'view');
+  if (!row) throw noSuchCase();
+  return { row, access: caseAccess(user, row) };
+}
+
+/**
+ * The case locked for the rest of the transaction, if the user may see it (else 404): look up and
+ * authorise the row inside the transaction that writes it, not before it.
+ */
+export async function lockVisibleCase(trx: Knex.Transaction, user: User, id: string): Promise<Visible> {
+  const row = await lockCaseWithRight(trx, user, id, 'view');
+  if (!row) throw noSuchCase();
+  return { row, access: caseAccess(user, row) };
 }
 
 const iso = (d: Date | string | null) => (d === null ? null : new Date(d).toISOString());
@@ -27,17 +39,8 @@ const iso = (d: Date | string | null) => (d === null ? null : new Date(d).toISOS
 /** The case as this user may see it: reporter identity and position only for those allowed. */
 export async function toCaseDetail(user: User, row: CaseRow, q: Knex = db): Promise<CaseDetail> {
   const access = caseAccess(user, row);
-  const settings = await getClubSettings();
-  const people = await q('users')
-    .select('id', 'name', 'call_sign', 'email')
-    .whereIn('id', [row.assigneeId, row.reporterId].filter((x): x is string => !!x));
-  const person = (id: string | null) => {
-    const p = people.find((x) => x.id === id);
-    return p ? { id: p.id as string, name: p.name as string, callSign: (p.call_sign as string | null) ?? null, email: p.email as string } : null;
-  };
-  const refs = await q('cases')
-    .select('id', 'reference', 'title')
-    .whereIn('id', [row.mergedInto, row.possibleDuplicateOf].filter((x): x is string => !!x));
+  const [settings, people, refs] = await Promise.all([getClubSettings(q), casePeople(q, [row.assigneeId, row.reporterId]), caseRefs(q, [row.mergedInto, row.possibleDuplicateOf])]);
+  const person = (id: string | null) => people.find((x) => x.id === id) ?? null;
   const ref = (id: string | null) => refs.find((r) => r.id === id) ?? null;
 
   const assignee = person(row.assigneeId);

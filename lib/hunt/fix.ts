@@ -4,8 +4,9 @@ import { db } from '@/db';
 import { getBearing, listBearings, type BearingWithAuthor } from '@/db/bearings';
 import { fixTrail, insertFixSnapshot, latestFixSnapshot } from '@/db/fixes';
 import { loopCircumferences } from '@/db/users';
-import type { ClubSettings } from '@/db/types';
-import { estimateFix, sanityWarnings, suggestNextSpots, type Fix, type LineOfBearing } from '@/lib/df';
+import { getClubSettings } from '@/db/settings';
+import { declinationInfo, estimateFix, sanityWarnings, suggestNextSpots, type Fix, type LineOfBearing, type NextSpotOptions } from '@/lib/df';
+import { notFound } from '@/lib/errors';
 import { toBearingView } from './to-view';
 import type { BearingView, FixView } from './views';
 
@@ -24,12 +25,16 @@ export async function recomputeFix(trx: Knex.Transaction, caseId: string, cause:
   return fix;
 }
 
-/** Plain-language warnings about each active line's setup: loop size for its frequency, near field. */
-async function setupWarnings(bearings: BearingWithAuthor[], fix: Fix | undefined): Promise<string[]> {
-  const loops = await loopCircumferences([...new Set(bearings.map((b) => b.authorId).filter((x): x is string => !!x))]);
+/** Plain-language warnings about each active line's setup: the magnetic model's validity, loop size for its frequency, near field. */
+async function setupWarnings(q: Knex, bearings: BearingWithAuthor[], fix: Fix | undefined): Promise<string[]> {
+  const loops = await loopCircumferences([...new Set(bearings.map((b) => b.authorId).filter((x): x is string => !!x))], q);
   const out = new Set<string>();
   for (const b of bearings) {
-    if (b.excluded || !b.frequencyKhz) continue;
+    if (b.excluded) continue;
+    // The magnetic model's own caution (outside its validity window), for each magnetic line it converted.
+    const model = b.reference === 'magnetic' ? declinationInfo(b.lat, b.lon, new Date(b.takenAt)).warning : undefined;
+    if (model) out.add(`${b.authorName ?? 'A hunter'}'s line at ${b.azimuthTrueDeg.toFixed(1)}°: ${model}`);
+    if (!b.frequencyKhz) continue;
     const distanceM = fix?.ok ? distance([b.lon, b.lat], [fix.lon, fix.lat], { units: 'meters' }) : undefined;
     for (const w of sanityWarnings({ frequencyHz: b.frequencyKhz * 1000, loopCircumferenceM: b.authorId ? loops.get(b.authorId) : undefined, distanceM })) {
       out.add(`${b.authorName ?? 'A hunter'}'s line at ${b.azimuthTrueDeg.toFixed(1)}°: ${w}`);
@@ -38,13 +43,29 @@ async function setupWarnings(bearings: BearingWithAuthor[], fix: Fix | undefined
   return [...out];
 }
 
+/**
+ * What suggestNextSpots knows about the hunt: the bearings' frequency (median of the active lines
+ * that have one; keeps spots out of the near field) and where the hunter last stood (the latest
+ * active bearing), so spots within a walk are preferred.
+ */
+export function nextSpotOptions(bearings: Pick<BearingWithAuthor, 'lat' | 'lon' | 'excluded' | 'frequencyKhz' | 'takenAt'>[]): NextSpotOptions {
+  const active = bearings.filter((b) => !b.excluded);
+  const khz = active.map((b) => b.frequencyKhz).filter((f): f is number => typeof f === 'number' && f > 0).sort((a, b) => a - b);
+  const latest = active.reduce<(typeof active)[number] | undefined>((a, b) => (!a || new Date(b.takenAt) > new Date(a.takenAt) ? b : a), undefined);
+  return {
+    count: 3,
+    ...(khz.length ? { frequencyHz: khz[khz.length >> 1] * 1000 } : {}),
+    ...(latest ? { from: { lat: latest.lat, lon: latest.lon } } : {}),
+  };
+}
+
 /** The current fix, its convergence trail, where to stand next and what to watch out for. */
-export async function fixView(caseId: string, settings: Pick<ClubSettings, 'locateThresholdM'>, q: Knex = db): Promise<FixView> {
-  const [latest, trail, bearings] = await Promise.all([latestFixSnapshot(caseId, q), fixTrail(caseId, q), listBearings(caseId, q)]);
+export async function fixView(caseId: string, q: Knex = db): Promise<FixView> {
+  const [latest, trail, bearings, settings] = await Promise.all([latestFixSnapshot(caseId, q), fixTrail(caseId, q), listBearings(caseId, q), getClubSettings(q)]);
   const fix = latest?.result;
   const lines = toLines(bearings);
-  const nextSpots = lines.length > 0 ? suggestNextSpots(lines, { count: 3 }) : [];
-  const warnings = [...(fix?.ok ? fix.warnings : []), ...(await setupWarnings(bearings, fix))];
+  const nextSpots = lines.length > 0 ? suggestNextSpots(lines, nextSpotOptions(bearings)) : [];
+  const warnings = [...(fix?.ok ? fix.warnings : []), ...(await setupWarnings(q, bearings, fix))];
   return {
     current: latest ? { id: String(latest.id), createdAt: new Date(latest.createdAt).toISOString(), cause: latest.cause, lineCount: latest.lineCount, fix: latest.result } : null,
     trail: trail.map((t) => ({
@@ -69,7 +90,8 @@ export function isLocatable(fix: Fix | undefined, thresholdM: number): boolean {
 }
 
 /** What every bearing write answers with: the bearing as saved and the case's fix after it. */
-export async function bearingWithFix(caseId: string, bearingId: string, settings: Pick<ClubSettings, 'locateThresholdM'>): Promise<{ bearing: BearingView; fix: FixView }> {
-  const [b, fix] = await Promise.all([getBearing(caseId, bearingId), fixView(caseId, settings)]);
-  return { bearing: toBearingView(b!), fix };
+export async function bearingWithFix(caseId: string, bearingId: string): Promise<{ bearing: BearingView; fix: FixView }> {
+  const [b, fix] = await Promise.all([getBearing(caseId, bearingId), fixView(caseId)]);
+  if (!b) throw notFound('No such bearing on this case.');
+  return { bearing: toBearingView(b), fix };
 }

@@ -1,8 +1,9 @@
 import type { Knex } from 'knex';
 import { moveBearings } from '@/db/bearings';
-import { appendEvent, lockCase, writeCase } from '@/db/cases';
+import { appendEvent, writeCase } from '@/db/cases';
 import type { CaseRow, User } from '@/db/types';
-import { badRequest, notFound } from '@/lib/errors';
+import { badRequest } from '@/lib/errors';
+import { lockVisibleCase } from './case-detail';
 import { recomputeFix } from './fix';
 import { assertVersion } from './stale';
 import { ruleNotMet } from './transitions';
@@ -15,10 +16,9 @@ import { ruleNotMet } from './transitions';
 export async function mergeInto(trx: Knex.Transaction, user: User, dupId: string, targetId: string, version: number): Promise<CaseRow> {
   if (dupId === targetId) throw badRequest('A case cannot be merged into itself.');
   const [first, second] = [dupId, targetId].sort();
-  const locked = [await lockCase(trx, first), await lockCase(trx, second)];
-  const dup = locked.find((c) => c?.id === dupId);
-  const target = locked.find((c) => c?.id === targetId);
-  if (!dup || !target) throw notFound('No such case.');
+  const a = (await lockVisibleCase(trx, user, first)).row;
+  const b = (await lockVisibleCase(trx, user, second)).row;
+  const [dup, target] = a.id === dupId ? [a, b] : [b, a];
   await assertVersion(trx, dup, version);
   if (dup.mergedInto) throw ruleNotMet('This case has already been merged.');
   if (target.mergedInto || target.status === 'resolved') throw ruleNotMet(`${target.reference} is closed; reopen it or pick another case.`);
@@ -44,5 +44,5 @@ export async function mergeInto(trx: Knex.Transaction, user: User, dupId: string
     await recomputeFix(trx, target.id, `merged-in ${dup.reference}`);
     await recomputeFix(trx, dup.id, `merged-into ${target.reference}`);
   }
-  return (await lockCase(trx, target.id))!;
+  return (await lockVisibleCase(trx, user, target.id)).row;
 }

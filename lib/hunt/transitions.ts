@@ -1,12 +1,12 @@
 import type { Knex } from 'knex';
-import { appendEvent, writeCase } from '@/db/cases';
+import { appendEvent, latestPremisesConfirmation, writeCase } from '@/db/cases';
 import { latestFixSnapshot } from '@/db/fixes';
 import { getClubSettings } from '@/db/settings';
 import type { CaseRow, CaseStatus, User } from '@/db/types';
 import { AppError, forbidden } from '@/lib/errors';
 import type { z } from 'zod';
 import type { transitionSchema } from '@/lib/validation/cases';
-import { allowedTransitions, caseAccess } from './access';
+import { allowedTransitions, caseAccess, mayAttemptTransition } from './access';
 import { isLocatable } from './fix';
 import { assertVersion } from './stale';
 
@@ -15,17 +15,11 @@ type Transition = z.output<typeof transitionSchema>;
 /** 422: the request is well-formed but the case's evidence does not allow it yet. */
 export const ruleNotMet = (message: string) => new AppError(422, message);
 
-function roleMayAttempt(user: User, row: CaseRow, to: CaseStatus): boolean {
-  const a = caseAccess(user, row);
-  if (a.committee) return true;
-  return to === 'located' && a.seeHunt && user.role === 'hunter';
-}
-
 async function checkEvidence(trx: Knex.Transaction, user: User, row: CaseRow, t: Transition): Promise<Record<string, unknown>> {
   switch (t.to) {
     case 'located': {
       if (t.evidence === 'fix') {
-        const { locateThresholdM } = await getClubSettings();
+        const { locateThresholdM } = await getClubSettings(trx);
         const fix = (await latestFixSnapshot(row.id, trx))?.result;
         if (!fix?.ok) throw ruleNotMet('There is no fix yet: take bearings from at least two well-separated spots first.');
         if (!isLocatable(fix, locateThresholdM)) {
@@ -37,13 +31,9 @@ async function checkEvidence(trx: Knex.Transaction, user: User, row: CaseRow, t:
         return { evidence: 'fix', lat: fix.lat, lon: fix.lon, semiMajorM: fix.ellipse.semiMajorM };
       }
       if (!caseAccess(user, row).committee) throw forbidden('A coordinator must agree to locating a case by confirmed premises.');
-      const confirmed = await trx('case_events')
-        .where({ case_id: row.id, kind: 'comment' })
-        .whereRaw("(data->>'premisesConfirmed')::boolean is true")
-        .orderBy('id', 'desc')
-        .first('id', 'actor_id');
+      const confirmed = await latestPremisesConfirmation(trx, row.id);
       if (!confirmed) throw ruleNotMet('No hunter has confirmed the premises yet: a hunter records that in a comment first.');
-      return { evidence: 'premises', confirmationEventId: String(confirmed.id) };
+      return { evidence: 'premises', confirmationEventId: confirmed.id };
     }
     case 'notified':
       if (new Date(t.deliveredOn) > new Date()) throw ruleNotMet('The delivery date is in the future.');
@@ -57,7 +47,7 @@ async function checkEvidence(trx: Knex.Transaction, user: User, row: CaseRow, t:
 
 /** Validates who, from which state and with what evidence; writes the case and its timeline entry. */
 export async function applyTransition(trx: Knex.Transaction, user: User, row: CaseRow, t: Transition): Promise<void> {
-  if (!roleMayAttempt(user, row, t.to)) throw forbidden(`Your role cannot move a case to ${t.to}.`);
+  if (!mayAttemptTransition(user, row, t.to)) throw forbidden(`Your role cannot move a case to ${t.to}.`);
   await assertVersion(trx, row, t.version);
   if (!allowedTransitions(user, row).includes(t.to)) throw ruleNotMet(`A case that is ${row.status} cannot move to ${t.to}.`);
   const evidence = await checkEvidence(trx, user, row, t);

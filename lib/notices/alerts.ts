@@ -1,15 +1,17 @@
 import type { Knex } from 'knex';
 import { randomUUID } from 'node:crypto';
 import { insertOutbox } from '@/db/outbox';
+import { getClubSettings } from '@/db/settings';
+import { activeCoordinatorEmails } from '@/db/notices';
 import { messageIdDomain } from './config';
 import { renderNotice, wrapHtml } from './render';
 
 /** Who hears about answers and reminders: the active coordinators and the club's contact address. */
 async function alertRecipients(q: Knex): Promise<{ email: string; clubName: string }[]> {
-  const club = await q('club_settings').where({ id: 1 }).first('club_name', 'contact_email');
-  const people = await q('users').where({ role: 'coordinator', active: true }).pluck('email');
-  const all = new Set<string>([...people, ...(club?.contact_email ? [club.contact_email] : [])].map((e) => e.toLowerCase()));
-  return [...all].map((email) => ({ email, clubName: club?.club_name ?? 'Quietfix' }));
+  const club = await getClubSettings(q);
+  const people = await activeCoordinatorEmails(q);
+  const all = new Set<string>([...people, ...(club.contactEmail ? [club.contactEmail] : [])].map((e) => e.toLowerCase()));
+  return [...all].map((email) => ({ email, clubName: club.clubName }));
 }
 
 /**

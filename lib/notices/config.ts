@@ -1,8 +1,10 @@
-import { env, type Env } from '@/lib/env';
+import { env } from '@/lib/env';
 
-/** Settings of the notices and the outbox: the app's one parsed environment (lib/env.ts). */
-export type NoticeConfig = Env;
-export const noticeConfig = (): NoticeConfig => env;
+/** An address inside the app, e.g. appUrl('/r/abc'): APP_URL without a trailing slash, then the path. */
+export const appUrl = (path: string) => `${env.APP_URL.replace(/\/$/, '')}${path}`;
+
+/** When a response link made now stops working (NOTICE_TOKEN_DAYS). */
+export const linkExpiry = (now = Date.now()) => new Date(now + env.NOTICE_TOKEN_DAYS * 86_400_000);
 
 /** The secret response links are derived from; without one no link can be made. */
 export function tokenSecret(): string {

@@ -8,7 +8,8 @@ import { getNotice, lockNotice, writeNotice } from '@/db/notices';
 import { claimDue, getOutboxRow, lockOutboxRow, markEffectsApplied, markFailed, markSent, sentWithoutEffects, type OutboxRow } from '@/db/outbox';
 import { mailer } from '@/lib/mail/send';
 import { composeAccountMail, RetiredLinkError } from '@/lib/auth/account-mail';
-import { noticeConfig } from './config';
+import { env } from '@/lib/env';
+import { backoffMs } from './backoff';
 import { renderFrozen } from './values';
 import { prepareReminders } from './reminders';
 
@@ -41,7 +42,7 @@ export type WorkerOptions = {
 export const newWorkerId = () => `${hostname()}:${process.pid}:${randomBytes(4).toString('hex')}`;
 
 function settings(o: WorkerOptions) {
-  const c = noticeConfig();
+  const c = env;
   return {
     q: o.knex ?? db,
     transport: o.transport ?? mailer(),
@@ -54,8 +55,6 @@ function settings(o: WorkerOptions) {
   };
 }
 
-/** Wait before try n+1 after n failed tries: base, 2 x base, 4 x base ... capped. */
-export const backoffMs = (attempts: number, baseMs: number, capMs: number) => Math.min(capMs, baseMs * 2 ** Math.max(0, attempts - 1));
 
 /** Claims due rows for this worker (lease + FOR UPDATE SKIP LOCKED). */
 export async function claimBatch(o: WorkerOptions & { workerId: string }): Promise<OutboxRow[]> {
@@ -64,7 +63,7 @@ export async function claimBatch(o: WorkerOptions & { workerId: string }): Promi
 }
 
 async function composeMessage(q: Knex, row: OutboxRow) {
-  const base = { to: row.toAddress, messageId: row.messageId, from: noticeConfig().MAIL_FROM };
+  const base = { to: row.toAddress, messageId: row.messageId, from: env.MAIL_FROM };
   if (row.kind === 'alert') return { ...base, subject: row.subject ?? '', text: row.textBody ?? '', html: row.htmlBody ?? undefined };
   if (row.kind === 'account') return { ...base, ...(await composeAccountMail(q, row)) };
   const n = await getNotice(row.noticeId!, q);

@@ -1,12 +1,12 @@
 import { createHash } from 'node:crypto';
 import type { z } from 'zod';
 import { inTransaction } from '@/db';
-import { appendEvent } from '@/db/cases';
+import { appendEvent, caseRefs } from '@/db/cases';
 import { answersInLastHour, getNoticeByTokenHash, insertAnswer, listAnswers, lockNotice, type NoticeRow } from '@/db/notices';
 import { notFound, tooManyRequests } from '@/lib/errors';
 import { ANSWER_KINDS, type answerSchema } from '@/lib/validation/notices';
 import { queueCommitteeAlert } from './alerts';
-import { noticeConfig } from './config';
+import { appUrl } from './config';
 import { hashResponseToken, looksLikeToken } from './token';
 import { longDate, renderFrozen } from './values';
 
@@ -64,7 +64,7 @@ export async function recordAnswer(token: string, client: string, a: z.output<ty
       throw tooManyRequests('Thank you, we already have several answers from you in the last hour. Please try again later or write to the club.', 3600);
     }
     const saved = await insertAnswer(trx, { noticeId: n.id, kind: a.kind, message: a.message, contact: a.contact, clientHash: ch });
-    const c = await trx('cases').where({ id: n.caseId }).first('reference', 'title');
+    const [c] = await caseRefs(trx, [n.caseId]);
     await appendEvent(trx, {
       caseId: n.caseId,
       actorId: null,
@@ -81,7 +81,7 @@ export async function recordAnswer(token: string, client: string, a: z.output<ty
         `Answer: ${ANSWER_KINDS[a.kind]}`,
         ...(a.message ? [`Their words: ${a.message}`] : []),
         ...(a.contact ? [`How to reach them: ${a.contact}`] : []),
-        `The case: ${noticeConfig().APP_URL.replace(/\/$/, '')}/cases/${n.caseId}`,
+        `The case: ${appUrl(`/cases/${n.caseId}`)}`,
       ],
     });
     return { id: saved.id };

@@ -1,8 +1,9 @@
 import type { Knex } from 'knex';
 import { appendEvent, lockCase } from '@/db/cases';
-import { activeNoticeAt, insertNotice, lockNotice } from '@/db/notices';
+import { activeNoticeAt, dueForReminder, insertNotice, lockNotice, markReminderChecked } from '@/db/notices';
+import { getClubSettings } from '@/db/settings';
 import { queueCommitteeAlert } from './alerts';
-import { noticeConfig } from './config';
+import { appUrl } from './config';
 
 /**
  * Reminders: a first notice with no answer after the club's reminder_days gets a follow-up
@@ -10,27 +11,14 @@ import { noticeConfig } from './config';
  * notice (reminder_checked_at, and a unique index on follow_up_of).
  */
 export async function prepareReminders(q: Knex, limit = 20): Promise<number> {
-  const due: { id: string; case_id: string }[] = await q('notices as n')
-    .join('cases as c', 'c.id', 'n.case_id')
-    .crossJoin(q.raw('club_settings as s'))
-    .select('n.id', 'n.case_id')
-    .where('s.id', 1)
-    .whereIn('n.status', ['sent', 'hand-delivered'])
-    .where('n.template_key', 'first-notice')
-    .whereNull('n.reminder_checked_at')
-    .where('c.status', 'notified')
-    .whereRaw("coalesce(n.sent_at, n.delivered_on::timestamptz) < now() - make_interval(days => s.reminder_days)")
-    .whereNotExists(q('notice_answers as a').whereRaw('a.notice_id = n.id'))
-    .orderBy('n.sent_at')
-    .limit(limit);
+  const due = await dueForReminder(q, (await getClubSettings(q)).reminderDays, limit);
   let prepared = 0;
   for (const d of due) {
     await q.transaction(async (trx) => {
-      const c = await lockCase(trx, d.case_id);
+      const c = await lockCase(trx, d.caseId);
       const n = await lockNotice(trx, d.id);
       if (!c || !n) return;
-      const checked = await trx('notices').where({ id: n.id }).whereNull('reminder_checked_at').update({ reminder_checked_at: trx.fn.now() });
-      if (checked === 0) return; // another worker got here first
+      if (!(await markReminderChecked(trx, n.id))) return; // another worker got here first
       if (await activeNoticeAt(trx, c.id, n.addressKey)) return; // someone already prepared one by hand
       const draft = await insertNotice(trx, {
         caseId: c.id,
@@ -51,7 +39,7 @@ export async function prepareReminders(q: Knex, limit = 20): Promise<number> {
         lines: [
           `The notice to ${n.recipientName} (${c.reference}, "${c.title}") has had no answer since it went out.`,
           'Quietfix prepared a follow-up draft from the follow-up template. Nothing is sent until a coordinator approves it.',
-          `Review it here: ${noticeConfig().APP_URL.replace(/\/$/, '')}/cases/${c.id}/notices`,
+          `Review it here: ${appUrl(`/cases/${c.id}/notices`)}`,
         ],
       });
       prepared++;

@@ -1,32 +1,41 @@
 import type { Knex } from 'knex';
 import type { z } from 'zod';
-import { appendEvent, lockCase } from '@/db/cases';
+import { appendEvent } from '@/db/cases';
 import type { CaseRow, User } from '@/db/types';
 import { activeNoticeAt, insertNotice, lockNotice, writeNotice, type NoticeRow } from '@/db/notices';
 import { getNoticeOutbox, getOutboxByIdempotencyKey, insertOutbox, requeue, type OutboxRow } from '@/db/outbox';
 import { getTemplate } from '@/db/templates';
 import { AppError, conflict, forbidden, notFound } from '@/lib/errors';
 import { caseAccess } from '@/lib/hunt/access';
+import { lockVisibleCase } from '@/lib/hunt/case-detail';
 import { applyTransition, ruleNotMet } from '@/lib/hunt/transitions';
 import type { noticeBaseSchema, noticePatchSchema } from '@/lib/validation/notices';
 import { addressKey } from './address-key';
-import { messageIdDomain, noticeConfig } from './config';
+import { linkExpiry, messageIdDomain } from './config';
 import { deriveToken, hashResponseToken, newNonce } from './token';
 import { buildValues } from './values';
 
 /**
- * Who may do what with a case's notices: the committee composes, approves and sends; the
- * assigned hunter may read and draft. Everyone else: 403 (the case itself is checked first).
+ * Who may do what with a case's notices. The assigned hunter may `read`: see that a notice exists
+ * and its status. The household's name, address, e-mail, answers and response link (`contact`),
+ * composing (`draft`) and approving, sending and recording (`decide`) are the committee's.
+ * Everyone else: 403 (the case itself is checked first).
  */
 export function noticeAccess(user: User, c: CaseRow) {
   const a = caseAccess(user, c);
-  return { read: a.seeHunt, draft: a.seeHunt, decide: a.committee };
+  return { read: a.seeHunt, contact: a.committee, draft: a.committee, decide: a.committee };
 }
+export type NoticeRight = keyof ReturnType<typeof noticeAccess>;
 
-export function requireNoticeRight(user: User, c: CaseRow, right: 'read' | 'draft' | 'decide') {
-  if (!noticeAccess(user, c)[right]) {
-    throw forbidden(right === 'decide' ? 'Only coordinators approve, send and record notices.' : 'Notices are for the committee and the assigned hunter.');
-  }
+const REFUSALS: Record<NoticeRight, string> = {
+  read: 'Notices are for the committee and the assigned hunter.',
+  contact: 'The household’s details and the letter are for the committee (coordinators and admins).',
+  draft: 'Coordinators write notices; tell them what you found in a comment.',
+  decide: 'Only coordinators approve, send and record notices.',
+};
+
+export function requireNoticeRight(user: User, c: CaseRow, right: NoticeRight) {
+  if (!noticeAccess(user, c)[right]) throw forbidden(REFUSALS[right]);
 }
 
 const NOTIFIABLE = ['located', 'notified', 'resolved'];
@@ -40,18 +49,18 @@ function staleNotice(n: NoticeRow): AppError {
   return conflict('Someone changed this notice after you loaded it. Reload to see the change, then try again.', { currentVersion: n.version });
 }
 
-/** Loads and locks a notice of this case, or 404. */
-export async function lockCaseNotice(trx: Knex.Transaction, caseId: string, noticeId: string): Promise<{ c: CaseRow; n: NoticeRow }> {
-  const c = await lockCase(trx, caseId);
-  const n = c && (await lockNotice(trx, noticeId));
-  if (!c || !n || n.caseId !== caseId) throw notFound('No such notice on this case.');
+/** Locks the case (if `me` may see it) and a notice of it, or 404. */
+export async function lockCaseNotice(trx: Knex.Transaction, me: User, caseId: string, noticeId: string): Promise<{ c: CaseRow; n: NoticeRow }> {
+  const { row: c } = await lockVisibleCase(trx, me, caseId);
+  const n = await lockNotice(trx, noticeId);
+  if (!n || n.caseId !== caseId) throw notFound('No such notice on this case.');
   return { c, n };
 }
 
 type Draft = z.output<typeof noticeBaseSchema>;
 
 export async function createDraft(trx: Knex.Transaction, me: User, caseId: string, input: Draft): Promise<NoticeRow> {
-  const c = (await lockCase(trx, caseId))!;
+  const { row: c } = await lockVisibleCase(trx, me, caseId);
   requireNoticeRight(me, c, 'draft');
   if (!NOTIFIABLE.includes(c.status)) throw ruleNotMet('Notices are written once the source is located: locate the case first.');
   const key = addressKey(input.postalAddress);
@@ -70,7 +79,7 @@ export async function createDraft(trx: Knex.Transaction, me: User, caseId: strin
 }
 
 export async function editDraft(trx: Knex.Transaction, me: User, caseId: string, noticeId: string, input: z.output<typeof noticePatchSchema>): Promise<void> {
-  const { c, n } = await lockCaseNotice(trx, caseId, noticeId);
+  const { c, n } = await lockCaseNotice(trx, me, caseId, noticeId);
   requireNoticeRight(me, c, 'draft');
   if (n.version !== input.version) throw staleNotice(n);
   if (n.status !== 'draft') throw ruleNotMet(`This notice is ${n.status}: only drafts can be edited.`);
@@ -89,13 +98,13 @@ export async function editDraft(trx: Knex.Transaction, me: User, caseId: string,
 
 /** Freezes the texts and values, makes the response link (nonce) and marks the notice approved. */
 export async function approve(trx: Knex.Transaction, me: User, caseId: string, noticeId: string, version: number): Promise<void> {
-  const { c, n } = await lockCaseNotice(trx, caseId, noticeId);
+  const { c, n } = await lockCaseNotice(trx, me, caseId, noticeId);
   requireNoticeRight(me, c, 'decide');
   if (n.version !== version) throw staleNotice(n);
   if (n.status !== 'draft') throw ruleNotMet(`This notice is already ${n.status}.`);
   const tpl = (await getTemplate(n.templateKey, trx))!;
   const nonce = newNonce();
-  const expires = new Date(Date.now() + noticeConfig().NOTICE_TOKEN_DAYS * 86_400_000);
+  const expires = linkExpiry();
   const values = await buildValues(trx, c, n, { senderName: me.name, noticeDate: new Date(), expiresOn: expires });
   await writeNotice(trx, n.id, {
     status: 'approved',
@@ -114,7 +123,7 @@ export async function approve(trx: Knex.Transaction, me: User, caseId: string, n
  * Idempotent: the same key, or a second click while it is queued or sent, returns the same row.
  */
 export async function queueSend(trx: Knex.Transaction, me: User, caseId: string, noticeId: string, idempotencyKey: string): Promise<{ outbox: OutboxRow; created: boolean }> {
-  const { c, n } = await lockCaseNotice(trx, caseId, noticeId);
+  const { c, n } = await lockCaseNotice(trx, me, caseId, noticeId);
   requireNoticeRight(me, c, 'decide');
   const key = `send:${idempotencyKey}`;
   const byKey = await getOutboxByIdempotencyKey(trx, key);
@@ -142,7 +151,7 @@ export async function queueSend(trx: Knex.Transaction, me: User, caseId: string,
 
 /** A coordinator tries a failed e-mail again: same row, same Message-ID, fresh tries. */
 export async function retrySend(trx: Knex.Transaction, me: User, caseId: string, noticeId: string): Promise<void> {
-  const { c, n } = await lockCaseNotice(trx, caseId, noticeId);
+  const { c, n } = await lockCaseNotice(trx, me, caseId, noticeId);
   requireNoticeRight(me, c, 'decide');
   const row = await getNoticeOutbox(trx, n.id, true);
   if (!row || row.status !== 'failed' || n.status !== 'failed') throw ruleNotMet('Only a notice whose e-mail failed can be tried again.');
@@ -156,7 +165,7 @@ export async function retrySend(trx: Knex.Transaction, me: User, caseId: string,
  * through the same transition a coordinator would make by hand (lib/hunt/transitions.ts).
  */
 export async function markDelivered(trx: Knex.Transaction, me: User, caseId: string, noticeId: string, deliveredOn: string): Promise<void> {
-  const { c, n } = await lockCaseNotice(trx, caseId, noticeId);
+  const { c, n } = await lockCaseNotice(trx, me, caseId, noticeId);
   requireNoticeRight(me, c, 'decide');
   if (n.status !== 'approved' && n.status !== 'failed') throw ruleNotMet(`This notice is ${n.status}: only an approved letter can be recorded as delivered.`);
   if (new Date(deliveredOn) > new Date()) throw ruleNotMet('The delivery date is in the future.');

@@ -1,8 +1,10 @@
 import type { Knex } from 'knex';
 import type { CaseRow } from '@/db/types';
-import type { FrozenNotice, NoticeRow } from '@/db/notices';
+import { firstNoticeDate, type FrozenNotice, type NoticeRow } from '@/db/notices';
+import { casePeople } from '@/db/cases';
+import { getClubSettings } from '@/db/settings';
 import { getTemplate } from '@/db/templates';
-import { noticeConfig } from './config';
+import { appUrl, linkExpiry } from './config';
 import { deriveToken } from './token';
 import { renderNotice, wrapHtml, type Rendered } from './render';
 import type { PlaceholderValues } from './templates';
@@ -10,7 +12,7 @@ import type { PlaceholderValues } from './templates';
 export const longDate = (d: Date | string) =>
   new Date(d).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
 
-export const responseLink = (token: string) => `${noticeConfig().APP_URL.replace(/\/$/, '')}/r/${token}`;
+export const responseLink = (token: string) => appUrl(`/r/${token}`);
 
 /** Shown in previews before approval, when no link exists yet. */
 export const LINK_NOT_YET = '(the private response link is made when the notice is approved)';
@@ -25,14 +27,13 @@ export async function buildValues(
   n: Pick<NoticeRow, 'recipientName' | 'personalNote' | 'followUpOf'>,
   p: { senderName: string; noticeDate: Date; expiresOn: Date | null },
 ): Promise<PlaceholderValues> {
-  const club = (await q('club_settings').where({ id: 1 }).first('club_name', 'contact_email')) ?? { club_name: 'Quietfix club', contact_email: 'committee@example.test' };
-  const reporter = c.consentShareName && c.reporterId ? await q('users').where({ id: c.reporterId }).first('name') : undefined;
-  const first = n.followUpOf ? await q('notices').where({ id: n.followUpOf }).first('sent_at', 'delivered_on', 'approved_at') : undefined;
-  const firstDate = first ? (first.sent_at ?? first.delivered_on ?? first.approved_at) : null;
+  const club = await getClubSettings(q);
+  const [reporter] = c.consentShareName ? await casePeople(q, [c.reporterId]) : [];
+  const firstDate = n.followUpOf ? await firstNoticeDate(q, n.followUpOf) : null;
   return {
     recipientName: n.recipientName,
-    clubName: club.club_name,
-    clubContactEmail: club.contact_email,
+    clubName: club.clubName,
+    clubContactEmail: club.contactEmail,
     caseReference: c.reference,
     senderName: p.senderName,
     personalNote: n.personalNote,
@@ -57,7 +58,7 @@ export function renderFrozen(n: Pick<NoticeRow, 'id' | 'tokenNonce'> & { frozen:
 export async function renderCurrent(q: Knex, c: CaseRow, n: NoticeRow, senderName: string): Promise<NoticeMessage> {
   if (n.frozen) return renderFrozen({ ...n, frozen: n.frozen });
   const tpl = (await getTemplate(n.templateKey, q))!;
-  const expires = new Date(Date.now() + noticeConfig().NOTICE_TOKEN_DAYS * 86_400_000);
+  const expires = linkExpiry();
   const values = await buildValues(q, c, n, { senderName, noticeDate: new Date(), expiresOn: expires });
   return renderFrozen({ id: n.id, tokenNonce: null, frozen: { subject: tpl.subject, body: tpl.body, values } });
 }

@@ -1,17 +1,18 @@
 import type { NoticeListRow } from '@/db/notices';
+import type { EventView } from '@/lib/hunt/views';
 
-/** A notice as the composer and the case's notices list show it. */
-export type NoticeView = {
+/**
+ * A notice as the assigned hunter may see it: that it exists, what kind it is and how it is
+ * getting on. Nothing about the household (name, address, e-mail, note, answers, the mail
+ * server's words, which may quote the address) and never the response link.
+ */
+export type NoticeSummary = {
   id: string;
   caseId: string;
   templateKey: string;
   status: string;
   /** plain words for the status, e.g. "waiting to send" */
   statusLabel: string;
-  recipientName: string;
-  postalAddress: string;
-  email: string | null;
-  personalNote: string;
   version: number;
   createdAt: string;
   createdByName: string | null;
@@ -20,9 +21,21 @@ export type NoticeView = {
   sentAt: string | null;
   deliveredOn: string | null;
   followUpOf: string | null;
+};
+
+/** A notice as the committee (coordinators, admins) sees it in the composer and the list. */
+export type NoticeView = NoticeSummary & {
+  recipientName: string;
+  postalAddress: string;
+  email: string | null;
+  personalNote: string;
   answers: number;
   delivery: { attempts: number; lastError: string | null; nextAttemptAt: string | null } | null;
 };
+
+/** What a notices answer carries: the full view for the committee, the summary otherwise. */
+export type NoticeItem = NoticeSummary | NoticeView;
+export const hasContact = (n: NoticeItem): n is NoticeView => 'postalAddress' in n;
 
 const iso = (d: Date | string | null) => (d === null ? null : new Date(d).toISOString());
 
@@ -45,17 +58,13 @@ export function statusLabel(status: string, outboxStatus: string | null): string
   }
 }
 
-export function toNoticeView(n: NoticeListRow): NoticeView {
+export function toNoticeSummary(n: NoticeListRow): NoticeSummary {
   return {
     id: n.id,
     caseId: n.caseId,
     templateKey: n.templateKey,
     status: n.status,
     statusLabel: statusLabel(n.status, n.outboxStatus),
-    recipientName: n.recipientName,
-    postalAddress: n.postalAddress,
-    email: n.email,
-    personalNote: n.personalNote,
     version: n.version,
     createdAt: iso(n.createdAt)!,
     createdByName: n.createdByName,
@@ -64,9 +73,31 @@ export function toNoticeView(n: NoticeListRow): NoticeView {
     sentAt: iso(n.sentAt),
     deliveredOn: n.deliveredOn,
     followUpOf: n.followUpOf,
+  };
+}
+
+export function toNoticeView(n: NoticeListRow): NoticeView {
+  return {
+    ...toNoticeSummary(n),
+    recipientName: n.recipientName,
+    postalAddress: n.postalAddress,
+    email: n.email,
+    personalNote: n.personalNote,
     answers: Number(n.answers),
     delivery: n.outboxStatus
       ? { attempts: Number(n.attempts ?? 0), lastError: n.lastError, nextAttemptAt: iso(n.nextAttemptAt) }
       : null,
   };
+}
+
+/** The one choice between the two shapes: `contact` is noticeAccess(...).contact. */
+export const toNoticeItem = (n: NoticeListRow, contact: boolean): NoticeItem => (contact ? toNoticeView(n) : toNoticeSummary(n));
+
+/** What a recipient's answer says beyond its kind: for the committee only (the name, their words, how to reach them). */
+const RECIPIENT_KEYS = ['recipientName', 'text', 'contact'];
+
+/** A timeline entry as someone outside the committee may read it: a recipient's answer keeps only its kind. */
+export function withoutRecipientDetails(e: EventView): EventView {
+  if (e.kind !== 'recipient-answered') return e;
+  return { ...e, data: Object.fromEntries(Object.entries(e.data).filter(([k]) => !RECIPIENT_KEYS.includes(k))) };
 }

@@ -57,7 +57,8 @@ test('a hunter sees house numbers inside the region, confirms the premises, and 
   await coordinator.goto(`/cases/${caseId}`);
   await expect(coordinator.getByTestId('premises')).toContainText(address);
   const c = await (await coordinator.request.get(`/api/cases/${caseId}`)).json();
-  const located = await coordinator.request.post(`/api/cases/${caseId}/transitions`, { data: { to: 'located', version: c.version, evidence: 'premises', note: '' } });
+  const headers = { origin: new URL(coordinator.url()).origin };
+  const located = await coordinator.request.post(`/api/cases/${caseId}/transitions`, { headers, data: { to: 'located', version: c.version, evidence: 'premises', note: '' } });
   expect(located.status(), await located.text()).toBe(200);
   try {
     await coordinator.goto(`/cases/${caseId}/notices`);
@@ -66,6 +67,6 @@ test('a hunter sees house numbers inside the region, confirms the premises, and 
   } finally {
     // Leave the demo case as the other tests expect it: open.
     const now = await (await coordinator.request.get(`/api/cases/${caseId}`)).json();
-    await coordinator.request.post(`/api/cases/${caseId}/transitions`, { data: { to: 'open', version: now.version, reason: 'Browser test done: back to open.' } });
+    await coordinator.request.post(`/api/cases/${caseId}/transitions`, { headers, data: { to: 'open', version: now.version, reason: 'Browser test done: back to open.' } });
   }
 });

@@ -12,6 +12,8 @@ export type Row = {
   expect: Record<Who, number>;
   /** the content type of a successful answer when it is not JSON (e.g. the letter PDF) */
   contentType?: RegExp;
+  /** keys that must appear nowhere in these callers' answers (checked at any depth) */
+  hidden?: { from: Who[]; keys: string[] };
 };
 
 const ALL_SIGNED_IN = { anon: 401, admin: 200, coordinator: 200, hunter: 200, member: 200 };
@@ -22,6 +24,8 @@ const HUNT_READ = { anon: 401, admin: 200, coordinator: 200, hunter: 200, member
 const HUNT_WRITE_BAD_BODY = { anon: 401, admin: 400, coordinator: 400, hunter: 400, member: 403 };
 const COMMITTEE_BAD_BODY = { anon: 401, admin: 400, coordinator: 400, hunter: 403, member: 403 };
 const COMMITTEE_READ = { anon: 401, admin: 200, coordinator: 200, hunter: 403, member: 403 };
+/** A household's details and the other-case warning: the committee's only (the hunter sees a notice exists and its status). */
+const RECIPIENT_DETAILS = { from: ['hunter'] as Who[], keys: ['recipientName', 'postalAddress', 'email', 'personalNote', 'answers', 'delivery', 'sameAddressElsewhere', 'responseLink', 'link'] };
 
 export const ACCESS: Row[] = [
   { name: 'list cases', method: 'GET', path: () => '/api/cases', expect: ALL_SIGNED_IN },
@@ -80,10 +84,18 @@ export const ACCESS: Row[] = [
   { name: 'list assignable people', method: 'GET', path: () => '/api/people/hunters', expect: COMMITTEE_READ },
   // Notices. `locatedCase` is the demo's located case (reporter: the demo member, hunter assigned);
   // `notice` a draft on it that access.test.ts creates. `token` is made up: always a plain 404.
-  { name: 'list notices', method: 'GET', path: (ids) => `/api/cases/${ids.locatedCase}/notices`, expect: HUNT_READ },
-  { name: 'draft a notice', method: 'POST', path: (ids) => `/api/cases/${ids.locatedCase}/notices`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
-  { name: 'read a notice', method: 'GET', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}`, expect: HUNT_READ },
-  { name: 'edit a draft notice', method: 'PATCH', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
+  { name: 'list notices', method: 'GET', path: (ids) => `/api/cases/${ids.locatedCase}/notices`, expect: HUNT_READ, hidden: RECIPIENT_DETAILS },
+  {
+    // The matrix's notice address is also on `otherLocatedCase` (a case the hunter is not assigned to).
+    name: 'list notices asking about an address',
+    method: 'GET',
+    path: (ids) => `/api/cases/${ids.locatedCase}/notices?address=${encodeURIComponent(ids.noticeAddress)}`,
+    expect: HUNT_READ,
+    hidden: RECIPIENT_DETAILS,
+  },
+  { name: 'draft a notice', method: 'POST', path: (ids) => `/api/cases/${ids.locatedCase}/notices`, body: () => ({}), expect: COMMITTEE_BAD_BODY },
+  { name: 'read a notice', method: 'GET', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}`, expect: HUNT_READ, hidden: RECIPIENT_DETAILS },
+  { name: 'edit a draft notice', method: 'PATCH', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}`, body: () => ({}), expect: COMMITTEE_BAD_BODY },
   { name: 'approve a notice', method: 'POST', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}/approve`, body: () => ({}), expect: COMMITTEE_BAD_BODY },
   { name: 'send a notice', method: 'POST', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}/send`, body: () => ({}), expect: COMMITTEE_BAD_BODY },
   {
@@ -95,8 +107,9 @@ export const ACCESS: Row[] = [
     expect: { anon: 401, admin: 422, coordinator: 422, hunter: 403, member: 403 },
   },
   { name: 'record a letter delivered', method: 'POST', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}/delivered`, body: () => ({}), expect: COMMITTEE_BAD_BODY },
-  { name: 'preview a notice', method: 'GET', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}/preview`, expect: HUNT_READ },
-  { name: 'print a letter', method: 'GET', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}/letter`, expect: HUNT_READ, contentType: /application\/pdf/ },
+  // The preview and the letter name the household and carry the private response link.
+  { name: 'preview a notice', method: 'GET', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}/preview`, expect: COMMITTEE_READ },
+  { name: 'print a letter', method: 'GET', path: (ids) => `/api/cases/${ids.locatedCase}/notices/${ids.notice}/letter`, expect: COMMITTEE_READ, contentType: /application\/pdf/ },
   { name: 'list templates', method: 'GET', path: () => '/api/templates', expect: ADMIN_ONLY },
   { name: 'read a template', method: 'GET', path: () => '/api/templates/first-notice', expect: ADMIN_ONLY },
   { name: 'save a template', method: 'PUT', path: () => '/api/templates/first-notice', body: () => ({}), expect: { anon: 401, admin: 400, coordinator: 403, hunter: 403, member: 403 } },

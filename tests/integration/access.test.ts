@@ -24,12 +24,54 @@ beforeAll(async () => {
   ids.openCase = open.json.items[0].id;
   ids.openBearing = (await api(`/api/cases/${ids.openCase}/bearings`, { session: sessions.admin })).json.items[0].id;
   ids.locatedCase = (await api('/api/cases?q=Warbling', { session: sessions.admin })).json.items[0].id;
+  ids.noticeAddress = `1 Matrix Row, Quillon ${Date.now()}`;
   const draft = await api(`/api/cases/${ids.locatedCase}/notices`, {
     session: sessions.coordinator,
-    body: { templateKey: 'first-notice', recipientName: 'Matrix household', postalAddress: `1 Matrix Row, Quillon ${Date.now()}` },
+    body: { templateKey: 'first-notice', recipientName: 'Matrix household', postalAddress: ids.noticeAddress },
   });
   ids.notice = draft.json.notice.id;
+  // The same household on a located case the hunter is not assigned to: the "same address elsewhere" warning must not tell them.
+  ids.otherLocatedCase = await locatedCaseOf(sessions.coordinator!);
+  const other = await api(`/api/cases/${ids.otherLocatedCase}/notices`, {
+    session: sessions.coordinator,
+    body: { templateKey: 'first-notice', recipientName: 'Matrix household', postalAddress: ids.noticeAddress },
+  });
+  expect(other.status, other.text).toBe(201);
+  // The committee is warned about it from the matrix's case: so there is something a hunter must not learn.
+  const warned = await api(`/api/cases/${ids.locatedCase}/notices?address=${encodeURIComponent(ids.noticeAddress)}`, { session: sessions.coordinator });
+  expect(warned.json.sameAddressElsewhere.map((x: { caseId: string }) => x.caseId)).toContain(ids.otherLocatedCase);
 });
+
+/** A fresh unassigned case, located by a coordinator on confirmed premises. */
+async function locatedCaseOf(s: Session): Promise<string> {
+  const filed = await api('/api/cases', {
+    session: s,
+    body: {
+      title: 'Matrix neighbour case',
+      sound: 'buzz',
+      soundNote: '',
+      description: 'A second case for the access matrix.',
+      frequencies: [{ value: 3.6, unit: 'MHz' }],
+      schedule: { days: ['tue'], pattern: 'continuous', note: '' },
+      position: { lat: -31.42, lon: 129.31 + (Date.now() % 1000) / 1e5, source: 'map' },
+      consentShareName: false,
+    },
+  });
+  expect(filed.status, filed.text).toBe(201);
+  const id = filed.json.case.id;
+  await api(`/api/cases/${id}/comments`, { session: s, body: { text: 'Premises confirmed.', premisesConfirmed: true } });
+  const version = (await api(`/api/cases/${id}`, { session: s })).json.version;
+  const t = await api(`/api/cases/${id}/transitions`, { session: s, body: { to: 'located', version, evidence: 'premises' } });
+  expect(t.status, t.text).toBe(200);
+  return id;
+}
+
+/** Every key of a JSON value, at any depth. */
+function keysOf(v: unknown, out = new Set<string>()): Set<string> {
+  if (Array.isArray(v)) v.forEach((x) => keysOf(x, out));
+  else if (v && typeof v === 'object') for (const [k, x] of Object.entries(v)) keysOf(x, out.add(k));
+  return out;
+}
 
 describe('access matrix (401 signed out, 403 wrong role, JSON always)', () => {
   const cases = ACCESS.flatMap((row) => WHO.map((who) => ({ row, who })));
@@ -38,6 +80,12 @@ describe('access matrix (401 signed out, 403 wrong role, JSON always)', () => {
     expect(r.status, r.text.slice(0, 300)).toBe(row.expect[who]);
     expect(r.headers.get('content-type')).toMatch(row.contentType && r.status < 400 ? row.contentType : /application\/json/);
     if (r.status >= 400) expect(typeof r.json.error).toBe('string');
+    if (row.hidden?.from.includes(who)) {
+      const keys = keysOf(r.json);
+      for (const k of row.hidden.keys) expect(keys.has(k), `${k} in ${r.text.slice(0, 300)}`).toBe(false);
+      expect(r.text).not.toContain(ids.noticeAddress);
+      expect(r.text).not.toContain(ids.otherLocatedCase);
+    }
   });
 });
 
@@ -135,5 +183,29 @@ describe('list endpoints', () => {
     for (const c of member.json.items) expect(c).not.toHaveProperty('reportedLat');
     const bad = await api('/api/cases?page=0', { session: sessions.admin });
     expect(bad.status).toBe(400);
+  });
+  it('list what the case page opens, by the same rule: a hunter sees the case they reported, not one assigned to someone else', async () => {
+    const filed = await api('/api/cases', {
+      session: sessions.hunter,
+      body: {
+        title: `Hunter's own report ${Date.now()}`,
+        sound: 'hiss',
+        soundNote: '',
+        description: 'Reported by a hunter about their own street.',
+        frequencies: [{ value: 7.05, unit: 'MHz' }],
+        schedule: { days: [], pattern: 'intermittent', note: '' },
+        position: { lat: -31.51, lon: 129.41 + (Date.now() % 1000) / 1e5, source: 'map' },
+        consentShareName: false,
+      },
+    });
+    expect(filed.status, filed.text).toBe(201);
+    const id = filed.json.case.id;
+    expect((await api(`/api/cases/${id}`, { session: sessions.hunter })).status).toBe(200);
+    const listed = await api(`/api/cases?q=${encodeURIComponent(filed.json.case.reference)}`, { session: sessions.hunter });
+    expect(listed.json.items.map((c: { id: string }) => c.id)).toEqual([id]);
+    // The matrix's neighbour case is unassigned and reported by the coordinator: neither list nor page.
+    const other = await api(`/api/cases?q=${encodeURIComponent('Matrix neighbour case')}`, { session: sessions.hunter });
+    expect(other.json.items.map((c: { id: string }) => c.id)).not.toContain(ids.otherLocatedCase);
+    expect((await api(`/api/cases/${ids.otherLocatedCase}`, { session: sessions.hunter })).status).toBe(404);
   });
 });

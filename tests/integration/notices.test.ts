@@ -21,7 +21,7 @@ import { deriveToken } from '@/lib/notices/token';
 import { api, CATCHER_URL, mailTo, signIn, uniqueEmail, waitFor, type Session } from '../support/http';
 import { closedPort } from '../support/net';
 
-let chair: Session, coordinator: Session, member: Session;
+let chair: Session, coordinator: Session, member: Session, hunter: Session;
 const catcherTransport = () => nodemailer.createTransport({ host: env.SMTP_HOST, port: env.SMTP_PORT, ignoreTLS: true, secure: false });
 
 let filed = 0;
@@ -89,7 +89,7 @@ async function allMail(): Promise<any[]> {
 }
 
 beforeAll(async () => {
-  [chair, coordinator, member] = await Promise.all(['chair', 'coordinator', 'member'].map((w) => signIn(`${w}@example.test`)));
+  [chair, coordinator, member, hunter] = await Promise.all(['chair', 'coordinator', 'member', 'hunter'].map((w) => signIn(`${w}@example.test`)));
 });
 
 describe('composing and sending a notice', () => {
@@ -291,6 +291,44 @@ describe('the response link', () => {
     expect(limited.status).toBe(429);
     expect(limited.json.error).toMatch(/try again later/);
     expect(limited.headers.get('retry-after')).toBe('3600');
+  });
+});
+
+describe('what the assigned hunter sees of notices', () => {
+  it('that a notice exists and its status; never the household, the link or other cases', async () => {
+    const mine = await locatedCase();
+    const elsewhere = await locatedCase();
+    const hunterId = (await api('/api/auth/session', { session: hunter })).json.user.id;
+    const c = (await api(`/api/cases/${mine.id}`, { session: coordinator })).json;
+    expect((await api(`/api/cases/${mine.id}`, { method: 'PATCH', session: coordinator, body: { version: c.version, assigneeId: hunterId } })).status).toBe(200);
+    const address = `9 Quiet Close, Quillon ${Date.now()}`;
+    await draft(elsewhere.id, { recipientName: 'Robin Elsewhere', postalAddress: address });
+    const n = await approved(mine.id, { recipientName: 'Sam Private', postalAddress: address, personalNote: 'Happy to help.' });
+    const token = (await linkFor(n.id)).split('/r/')[1];
+    expect((await api(`/api/r/${token}/answers`, { body: { kind: 'contact-me', contact: '0123 999 000', message: 'Call after six.' } })).status).toBe(201);
+
+    // The committee sees everything, the other case included.
+    const asCoordinator = await api(`/api/cases/${mine.id}/notices?address=${encodeURIComponent(address)}`, { session: coordinator });
+    expect(asCoordinator.json.items[0]).toMatchObject({ recipientName: 'Sam Private', postalAddress: address, answers: 1 });
+    expect(asCoordinator.json.sameAddressElsewhere).toEqual([expect.objectContaining({ caseId: elsewhere.id })]);
+
+    const list = await api(`/api/cases/${mine.id}/notices?address=${encodeURIComponent(address)}`, { session: hunter });
+    expect(list.status, list.text).toBe(200);
+    expect(list.json.items).toEqual([expect.objectContaining({ id: n.id, status: 'approved', statusLabel: 'approved, not sent', templateKey: 'first-notice' })]);
+    expect(list.json.can).toEqual({ read: true, contact: false, draft: false, decide: false });
+    const one = await api(`/api/cases/${mine.id}/notices/${n.id}`, { session: hunter });
+    expect(one.status).toBe(200);
+    const events = await api(`/api/cases/${mine.id}/events`, { session: hunter });
+    expect(events.json.items.find((e: any) => e.kind === 'recipient-answered')).toMatchObject({ data: { noticeId: n.id, answer: 'contact-me' } });
+    for (const r of [list, one, events]) {
+      for (const secret of ['Sam Private', 'Robin Elsewhere', address, '0123 999 000', 'Call after six.', 'Happy to help.', token, elsewhere.id, elsewhere.reference]) {
+        expect(r.text).not.toContain(secret);
+      }
+      expect(r.text).not.toMatch(/sameAddressElsewhere|postalAddress|recipientName/);
+    }
+    for (const part of ['preview', 'letter']) expect((await api(`/api/cases/${mine.id}/notices/${n.id}/${part}`, { session: hunter })).status).toBe(403);
+    const hunterDraft = await api(`/api/cases/${mine.id}/notices`, { session: hunter, body: { templateKey: 'first-notice', recipientName: 'X Y', postalAddress: '1 Some Row' } });
+    expect(hunterDraft.status).toBe(403);
   });
 });
 

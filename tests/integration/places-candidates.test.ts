@@ -89,7 +89,7 @@ beforeAll(async () => {
     await upsertPlaces(trx, places);
     const c = await insertCase(trx, { title: 'Constructed fix for candidates', description: '', reporterId: reporter!.id, reportedLat: CENTRE.lat, reportedLon: CENTRE.lon, bands: ['test-band'] });
     caseId = c.id;
-    const fix: Fix = { ok: true, lat: CENTRE.lat, lon: CENTRE.lon, ellipse: ELLIPSE, residuals: [], outlierIds: [], intersections: [], warnings: [] };
+    const fix: Fix = { ok: true, lat: CENTRE.lat, lon: CENTRE.lon, ellipse: ELLIPSE, residuals: [], outlierIds: [], intersections: [], warnings: [], notices: [], varianceFactor: 1 };
     await insertFixSnapshot(trx, caseId, 'constructed', 3, fix);
   });
 });

@@ -1,27 +1,28 @@
 'use client';
 
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import { inviteSchema, type InviteInput } from '@/lib/validation/users';
-import { callApi } from '@/lib/api/client';
+import { inviteSchema } from '@/lib/validation/users';
+import { useApiForm } from '@/lib/api/use-api-form';
 import type { Role } from '@/db/types';
 import { TextField } from '@/components/ui/text-field';
 import { NoticeBox } from '@/components/ui/notice-box';
+import { FormProblemBox } from '@/components/ui/form-problem';
 
 export function InviteForm({ roles }: { roles: Role[] }) {
-  const [message, setMessage] = useState<{ tone: 'info' | 'error'; text: string } | null>(null);
-  const { register, handleSubmit, formState, reset } = useForm<InviteInput>({ resolver: zodResolver(inviteSchema), defaultValues: { role: 'member' } });
-  async function onSubmit(values: InviteInput) {
-    const r = await callApi<{ email: string }>('/api/invitations', { body: values });
-    if (r.ok) {
-      setMessage({ tone: 'info', text: `Invitation sent to ${r.data.email}.` });
-      reset({ role: values.role, email: '', name: '' });
-    } else setMessage({ tone: 'error', text: r.error });
-  }
+  const [sentTo, setSentTo] = useState<string | null>(null);
+  const { form, submit, problem, pending } = useApiForm<typeof inviteSchema, { email: string }>(inviteSchema, {
+    defaultValues: { role: 'member', email: '', name: '' },
+    request: () => ({ url: '/api/invitations' }),
+    onSuccess: (data, values) => {
+      setSentTo(data.email);
+      form.reset({ role: values.role, email: '', name: '' });
+    },
+  });
+  const { register, formState } = form;
   return (
-    <form onSubmit={handleSubmit(onSubmit)} className="card space-y-4" noValidate>
-      {message && <NoticeBox tone={message.tone}>{message.text}</NoticeBox>}
+    <form onSubmit={(e) => (setSentTo(null), submit(e))} className="card space-y-4" noValidate>
+      {sentTo && <NoticeBox tone="info">Invitation sent to {sentTo}.</NoticeBox>}
+      <FormProblemBox problem={problem} />
       <TextField id="name" label="Name" autoComplete="off" error={formState.errors.name} registration={register('name')} />
       <TextField id="email" label="E-mail" type="email" autoComplete="off" error={formState.errors.email} registration={register('email')} />
       <div>
@@ -34,7 +35,7 @@ export function InviteForm({ roles }: { roles: Role[] }) {
           ))}
         </select>
       </div>
-      <button type="submit" className="btn-primary w-full" disabled={formState.isSubmitting}>
+      <button type="submit" className="btn-primary w-full" disabled={pending}>
         Send invitation
       </button>
     </form>

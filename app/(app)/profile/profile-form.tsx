@@ -2,20 +2,17 @@
 
 import useSWR from 'swr';
 import { useState } from 'react';
-import { useForm, useWatch } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
+import { useWatch } from 'react-hook-form';
 import { LOOP_SHAPES, profileSchema, type ProfileInput } from '@/lib/validation/profile';
-import { callApi, fetchJson } from '@/lib/api/client';
+import { fetchJson } from '@/lib/api/client';
+import { useApiForm } from '@/lib/api/use-api-form';
+import { FormProblemBox } from '@/components/ui/form-problem';
 import type { Profile } from '@/db/types';
 import { TextField } from '@/components/ui/text-field';
 import { NoticeBox } from '@/components/ui/notice-box';
 import { numberOrUndefined, plainMessage } from '@/components/ui/field-error';
 import { ChoiceChip, NumberField, SelectField } from '@/components/ui/form-fields';
-import { applyServerIssues } from '@/lib/api/apply-server-issues';
 import { LoopSizeNote } from './loop-size-note';
-
-type ProfileOutput = z.output<typeof profileSchema>;
 
 const SHAPE_LABELS: Record<(typeof LOOP_SHAPES)[number], { shape: string; size: string }> = {
   circle: { shape: 'Circle', size: 'Diameter (m)' },
@@ -30,7 +27,6 @@ const REFERENCES = [
 
 const textOrNull = (v: unknown) => (typeof v === 'string' && v.trim() !== '' ? v : null);
 const numberOrNull = (v: unknown) => numberOrUndefined(v) ?? null;
-const FIELDS = Object.keys(profileSchema.shape);
 
 function toFormValues(p: Profile): ProfileInput {
   return {
@@ -44,30 +40,25 @@ function toFormValues(p: Profile): ProfileInput {
 }
 
 function Form({ profile, onSaved }: { profile: Profile; onSaved: (p: Profile) => void }) {
-  const [message, setMessage] = useState<{ tone: 'info' | 'error'; text: string } | null>(null);
-  const { register, handleSubmit, formState, control, setError, reset } = useForm<ProfileInput, unknown, ProfileOutput>({
-    resolver: zodResolver(profileSchema),
+  const [saved, setSaved] = useState(false);
+  const { form, submit, problem } = useApiForm<typeof profileSchema, Profile>(profileSchema, {
     defaultValues: toFormValues(profile),
+    request: () => ({ url: '/api/profile', method: 'PATCH' }),
+    onSuccess: (p) => {
+      form.reset(toFormValues(p));
+      onSaved(p);
+      setSaved(true);
+    },
   });
+  const { register, formState, control } = form;
   const [shape, size] = useWatch({ control, name: ['loopShape', 'loopSizeM'] });
   const e = formState.errors;
 
-  async function onSubmit(values: ProfileOutput) {
-    setMessage(null);
-    const r = await callApi<Profile>('/api/profile', { method: 'PATCH', body: values });
-    if (r.ok) {
-      reset(toFormValues(r.data));
-      onSaved(r.data);
-      setMessage({ tone: 'info', text: 'Profile saved.' });
-    } else {
-      const rest = applyServerIssues(r.issues, setError, (p) => FIELDS.includes(p));
-      setMessage({ tone: 'error', text: [r.error, ...rest].join(' ') });
-    }
-  }
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="card space-y-5" data-testid="profile-form">
-      {message && <NoticeBox tone={message.tone}>{message.text}</NoticeBox>}
+    <form onSubmit={(ev) => (setSaved(false), submit(ev))} noValidate className="card space-y-5" data-testid="profile-form">
+      {saved && <NoticeBox tone="info">Profile saved.</NoticeBox>}
+      <FormProblemBox problem={problem} />
       <p className="text-sm text-ink-soft">
         Signed in as {profile.email} · {profile.role}
       </p>

@@ -3,28 +3,21 @@
 import Link from 'next/link';
 import { useSearchParams } from 'next/navigation';
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import { setPasswordSchema, type SetPasswordInput } from '@/lib/validation/users';
-import { callApi } from '@/lib/api/client';
+import { setPasswordSchema } from '@/lib/validation/users';
+import { useApiForm } from '@/lib/api/use-api-form';
 import { NewPasswordFields } from '@/components/ui/new-password-fields';
 import { NoticeBox } from '@/components/ui/notice-box';
+import { FormProblemBox } from '@/components/ui/form-problem';
 
 export function SetPasswordForm() {
   const token = useSearchParams().get('token') ?? '';
   const [done, setDone] = useState<string | null>(null);
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, formState } = useForm<SetPasswordInput>({
-    resolver: zodResolver(setPasswordSchema),
-    defaultValues: { token },
+  const { form, submit, problem, pending } = useApiForm<typeof setPasswordSchema, { email: string }>(setPasswordSchema, {
+    defaultValues: { token, password: '', confirm: '' },
+    request: () => ({ url: '/api/password' }),
+    onSuccess: (data) => setDone(data.email),
   });
-
-  async function onSubmit(values: SetPasswordInput) {
-    setProblem(null);
-    const r = await callApi<{ email: string }>('/api/password', { body: values });
-    if (r.ok) setDone(r.data.email);
-    else setProblem(r.error);
-  }
+  const { register, formState } = form;
 
   if (done)
     return (
@@ -35,11 +28,11 @@ export function SetPasswordForm() {
   if (!token) return <NoticeBox tone="error">This page needs the link from your e-mail.</NoticeBox>;
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} className="card space-y-4" noValidate>
-      {problem && <NoticeBox tone="error">{problem}</NoticeBox>}
+    <form onSubmit={submit} className="card space-y-4" noValidate>
+      <FormProblemBox problem={problem} />
       <input type="hidden" {...register('token')} />
       <NewPasswordFields password={register('password')} confirm={register('confirm')} errors={formState.errors} />
-      <button type="submit" className="btn-primary w-full" disabled={formState.isSubmitting}>
+      <button type="submit" className="btn-primary w-full" disabled={pending}>
         Save password
       </button>
     </form>

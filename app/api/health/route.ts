@@ -1,4 +1,4 @@
-import { db } from '@/db';
+import { pingDatabase } from '@/db';
 import { json, route } from '@/lib/api/handler';
 
 export const dynamic = 'force-dynamic';
@@ -7,7 +7,7 @@ export const dynamic = 'force-dynamic';
 export const GET = route(async () => {
   try {
     await Promise.race([
-      db.raw('select 1'),
+      pingDatabase(),
       new Promise((_, reject) => setTimeout(() => reject(new Error('health check timed out')), 3000)),
     ]);
     return json({ ok: true, db: 'up' });

@@ -54,5 +54,4 @@ export function pairwiseIntersections(lines: PreparedLine[], lengthM: number, re
   }
   out.sort((a, b) => a.order - b.order);
   return out.map(({ order: _order, ...rest }) => rest);
-  return out;
 }

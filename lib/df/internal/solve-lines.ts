@@ -7,11 +7,13 @@
  * geodesic's forward azimuth at X and m12 its reduced length (Karney 2013), here taken as the
  * distance s12 (they differ by a part in a million at 20 km). The step solves
  * (J'WJ) d = -J'W r with W = 1/sigma^2, and (J'WJ)^-1 is the covariance of the fix.
+ * One-way lines keep the unfolded residual, so the cost rises steeply behind them.
  */
 import { DEG, bearingResidualDeg } from './angles';
-import { approxEastNorth, geodesicInverse, offsetEastNorth } from './geodesy';
+import { geodesicInverse, offsetEastNorth } from './geodesy';
+import { fromPlane, planeLinearStart, toPlane } from './plane';
 import type { PreparedLine } from './prepare-lines';
-import { eigenSym2, invertSym2, type Sym2 } from './sym2';
+import { invertSym2, type Sym2 } from './sym2';
 
 /** One line linearised at the estimate. */
 export type LineRow = {
@@ -44,8 +46,6 @@ export type Solution = {
 export type SolveFailure = { ok: false; reason: 'near-parallel' | 'no-convergence'; message: string };
 
 const MAX_ITERATIONS = 100;
-/** The extra starts only look for a lower minimum nearby; they give up sooner. */
-const EXTRA_START_ITERATIONS = 25;
 const STEP_TOLERANCE_M = 1e-3;
 const DECREMENT_TOLERANCE = 1e-6;
 /** Beyond this a "fix" is not a local noise source: the lines are effectively parallel. */
@@ -77,7 +77,8 @@ function linearise(lines: PreparedLine[], lat: number, lon: number): Linearisati
     const az2 = g.azi2 * DEG;
     const jE = Math.cos(az2) / m12;
     const jN = -Math.sin(az2) / m12;
-    const r = bearingResidualDeg(g.azi1, line.azimuthDeg, false) * DEG;
+    // one-way lines keep their unfolded residual: a point behind one costs dearly (it constrains)
+    const r = bearingResidualDeg(g.azi1, line.azimuthDeg, line.oneWay) * DEG;
     const w = line.weight;
     a += w * jE * jE;
     b += w * jE * jN;
@@ -109,7 +110,7 @@ function rowsOf(lines: PreparedLine[], lin: Linearisation): LineRow[] {
 }
 
 /** Mean of the observers' positions (via unit vectors, so the order of lines and +-180 do not matter). */
-function meanPosition(lines: PreparedLine[]): { lat: number; lon: number } {
+export function meanPosition(lines: PreparedLine[]): { lat: number; lon: number } {
   let x = 0, y = 0, z = 0;
   for (const l of lines) {
     const c = Math.cos(l.lat * DEG);
@@ -119,39 +120,13 @@ function meanPosition(lines: PreparedLine[]): { lat: number; lon: number } {
   return { lat: Math.atan2(z, Math.hypot(x, y)) / DEG, lon: Math.atan2(y, x) / DEG };
 }
 
-/** Weighted linear least squares in a local plane: the start point of the iteration. */
+/** Weighted linear least squares in a local plane around the observers: the plain start point. */
 function planarStart(lines: PreparedLine[]): { lat: number; lon: number } | null {
   const o = meanPosition(lines);
-  const pts = lines.map((l) => approxEastNorth(o.lat, o.lon, l.lat, l.lon));
-  let x: [number, number] | null = null;
-  let floorM = 1;
-  for (let pass = 0; pass < 2; pass++) {
-    let a = 0, b = 0, c = 0, u = 0, v = 0;
-    for (let i = 0; i < lines.length; i++) {
-      const t = lines[i].azimuthDeg * DEG;
-      const nE = Math.cos(t), nN = -Math.sin(t);
-      const [pE, pN] = pts[i];
-      let w = lines[i].weight;
-      if (x) {
-        // second pass: weight by 1/range^2 (bearing error grows with range)
-        const d = Math.max(Math.hypot(x[0] - pE, x[1] - pN), floorM);
-        w /= d * d;
-      }
-      const k = nE * pE + nN * pN;
-      a += w * nE * nE; b += w * nE * nN; c += w * nN * nN;
-      u += w * nE * k; v += w * nN * k;
-    }
-    const inv = invertSym2([a, b, c]);
-    if (!inv) {
-      if (x) break; // keep the first-pass point
-      return null;
-    }
-    x = [inv[0] * u + inv[1] * v, inv[1] * u + inv[2] * v];
-    const ranges = pts.map(([pE, pN]) => Math.hypot((x as number[])[0] - pE, (x as number[])[1] - pN)).sort((p, q) => p - q);
-    floorM = Math.max(1, 0.1 * ranges[ranges.length >> 1]);
-  }
+  const plane = toPlane(lines, o.lat, o.lon);
+  const x = planeLinearStart(plane);
   if (!x || !(Math.hypot(x[0], x[1]) < MAX_FIX_RANGE_M)) return null;
-  return offsetEastNorth(o.lat, o.lon, x[0], x[1]);
+  return fromPlane(plane, x);
 }
 
 function parallelFailure(count: number): SolveFailure {
@@ -177,30 +152,20 @@ function numericHessian(lines: PreparedLine[], lat: number, lon: number, g: [num
   return a > 0 && a * c - b * b > 0 ? [a, b, c] : null;
 }
 
-/** Up to this many lines, other minima along the ellipse's major axis are also tried. */
-const MULTI_START_MAX_LINES = 60;
-
 /**
- * Solves for the most likely source position; `start` skips the planar start. With poor
- * geometry the cost can have more than one minimum along the lines, so for small sets the
- * search also starts 1 and 3 sigma either way along the major axis and keeps the lowest cost.
+ * Solves for the most likely source position by Gauss-Newton on the ellipsoid from `start`
+ * (the global search in global-search.ts picks it), or from the planar linear start.
  */
-export function solveLines(lines: PreparedLine[], start?: { lat: number; lon: number }): Solution | SolveFailure {
+export function solveLines(lines: PreparedLine[], start?: { lat: number; lon: number }, maxIterations = MAX_ITERATIONS): Solution | SolveFailure {
   const first = start ?? planarStart(lines);
   if (!first) return parallelFailure(lines.length);
-  const best = iterate(lines, first, MAX_ITERATIONS);
-  if (!best.ok || lines.length > MULTI_START_MAX_LINES) return best;
-  const cov = invertSym2(best.normal);
-  if (!cov) return best;
-  const e = eigenSym2(cov);
-  const sd = Math.sqrt(Math.max(e.major, 0));
-  let winner = best;
-  for (const k of [-3, -1, 1, 3]) {
-    const from = offsetEastNorth(best.lat, best.lon, k * sd * e.vx, k * sd * e.vy);
-    const other = iterate(lines, from, EXTRA_START_ITERATIONS);
-    if (other.ok && other.cost < winner.cost - 1e-9 * (1 + winner.cost)) winner = other;
-  }
-  return winner;
+  return iterate(lines, first, maxIterations);
+}
+
+/** The linearised rows of every line at a point (for leave-one-out / add-one tests). */
+export function rowsAt(lines: PreparedLine[], lat: number, lon: number): { rows: LineRow[]; normal: Sym2; cost: number } {
+  const lin = linearise(lines, lat, lon);
+  return { rows: rowsOf(lines, lin), normal: lin.normal, cost: lin.cost };
 }
 
 function iterate(lines: PreparedLine[], first: { lat: number; lon: number }, maxIterations: number): Solution | SolveFailure {

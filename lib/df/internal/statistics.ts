@@ -42,3 +42,20 @@ export function chiSquareUpper(alpha: number, dof: number): number {
   const h = 2 / (9 * dof);
   return dof * Math.pow(1 - h + z * Math.sqrt(h), 3);
 }
+
+/**
+ * Upper quantile of Student's t distribution: t with P(T <= t) = p, dof degrees of freedom.
+ * Exact for 1 and 2 dof; otherwise the Cornish-Fisher expansion in the normal quantile,
+ * Abramowitz & Stegun 26.7.5 (four terms; better than 1e-3 relative from 3 dof up).
+ */
+export function studentTQuantile(p: number, dof: number): number {
+  if (dof === 1) return Math.tan(Math.PI * (p - 0.5));
+  if (dof === 2) return (2 * p - 1) / Math.sqrt(2 * p * (1 - p));
+  const x = normalQuantile(p);
+  const x2 = x * x, v = dof;
+  const g1 = (x2 * x + x) / 4;
+  const g2 = ((5 * x2 + 16) * x2 * x + 3 * x) / 96;
+  const g3 = (((3 * x2 + 19) * x2 + 17) * x2 * x - 15 * x) / 384;
+  const g4 = ((((79 * x2 + 776) * x2 + 1482) * x2 - 1920) * x2 * x - 945 * x) / 92160;
+  return x + g1 / v + g2 / (v * v) + g3 / (v * v * v) + g4 / (v * v * v * v);
+}

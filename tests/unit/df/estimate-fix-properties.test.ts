@@ -68,6 +68,28 @@ describe('estimateFix invariants (fast-check)', () => {
     }), { numRuns: 40, endOnFailure: true, seed: 4242 });
   });
 
+  it('with a reflected line (robust path): order, 180-degree flips and translation still do not change the fix', () => {
+    const bands = fc.record({ lat: fc.double({ min: -60, max: 60, noNaN: true }), lon: fc.double({ min: -180, max: 180, noNaN: true }) });
+    const ringArb = fc.array(spotArb(fc.double({ min: 0, max: 360, noNaN: true })), { minLength: 5, maxLength: 9 }).map((extra) => extra.map((s, i) => ({ ...s, fromSourceAzDeg: (i * 360) / extra.length + (s.fromSourceAzDeg % 30) })));
+    fc.assert(fc.property(ringArb, fc.integer({ min: 1, max: 1e6 }), fc.double({ min: 25, max: 60, noNaN: true }), bands, (spots, seed, bend, place) => {
+      const bent = (src: { lat: number; lon: number }) => sceneLines(src, spots, gaussian(mulberry32(seed))).map((l, i) => (i === 1 ? { ...l, azimuthDeg: l.azimuthDeg + bend } : l));
+      const lines = bent(SOURCE);
+      const a = estimateFix(lines);
+      const b = estimateFix([...lines].reverse());
+      const c = estimateFix(lines.map((l, i) => (i % 2 ? { ...l, azimuthDeg: l.azimuthDeg + 180 } : l)));
+      if (!a.ok) return !b.ok && !c.ok;
+      if (!b.ok || !c.ok || distanceM(a, b) > 0.01 || distanceM(a, c) > 0.01) return false;
+      if ([...a.outlierIds].sort().join() !== [...b.outlierIds].sort().join()) return false;
+      const d = estimateFix(bent(place));
+      if (!d.ok) return false;
+      const ga = Geodesic.WGS84.Inverse(SOURCE.lat, SOURCE.lon, a.lat, a.lon), gd = Geodesic.WGS84.Inverse(place.lat, place.lon, d.lat, d.lon);
+      const rad = Math.PI / 180;
+      const dE = (ga.s12 as number) * Math.sin((ga.azi1 as number) * rad) - (gd.s12 as number) * Math.sin((gd.azi1 as number) * rad);
+      const dN = (ga.s12 as number) * Math.cos((ga.azi1 as number) * rad) - (gd.s12 as number) * Math.cos((gd.azi1 as number) * rad);
+      return Math.hypot(dE, dN) < 0.02 * a.ellipse.semiMajorM + 0.05 && a.outlierIds.join() === d.outlierIds.join();
+    }), { numRuns: 40, endOnFailure: true, seed: 4242 });
+  });
+
   it('adding a line through the fix never enlarges the ellipse', () => {
     fc.assert(fc.property(spotsArb, fc.double({ min: 0, max: 360, noNaN: true }), fc.double({ min: 100, max: 9000, noNaN: true }), (spots, az, range) => {
       const lines = sceneLines(SOURCE, spots, gaussian(mulberry32(3)));

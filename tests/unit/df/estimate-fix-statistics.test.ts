@@ -56,15 +56,17 @@ describe('95 % ellipse is honest under Gaussian bearing noise (seeded Monte Carl
 describe('outliers', () => {
   const spots: Spot[] = [0, 50, 100, 160, 220, 290].map((az, i) => ({ fromSourceAzDeg: az, rangeM: 600 + 150 * i, sigmaDeg: 3 }));
 
-  it('flags a line bent by a reflection and offers the fix without it', () => {
+  it('sets aside a line bent by a reflection; the all-lines fix is the alternative', () => {
     const lines = sceneLines(SOURCE, spots, gaussian(mulberry32(99)));
     lines[3].azimuthDeg += 25; // reflection off a fence: 25 degrees off (invented)
     const fix = estimateFix(lines);
     expect(fix.ok).toBe(true);
     if (!fix.ok) return;
     expect(fix.outlierIds).toEqual(['L3']);
-    expect(fix.withoutOutliers).toBeDefined();
-    expect(distanceM(fix.withoutOutliers!, SOURCE)).toBeLessThan(distanceM(fix, SOURCE));
+    expect(fix.allLines).toBeDefined();
+    expect(distanceM(fix, SOURCE)).toBeLessThan(distanceM(fix.allLines!, SOURCE));
+    expect(fix.residuals[3].setAside).toBe(true);
+    expect(fix.notices.map((n) => n.code)).toContain('lines-set-aside');
   });
 
   it('names lines without id by their index', () => {
@@ -109,15 +111,14 @@ describe('loop 180-degree ambiguity and one-way lines', () => {
     }
   });
 
-  it('warns, naming the line, when the fix is behind a one-way line', () => {
+  it('refuses, naming the line, when the lines can only cross behind a one-way line', () => {
     const lines = sceneLines(SOURCE, spots.map((s) => ({ ...s, oneWay: true })));
     lines[2].azimuthDeg += 180;
     const fix = estimateFix(lines);
-    expect(fix.ok).toBe(true);
-    if (!fix.ok) return;
-    expect(fix.warnings.some((w) => w.includes('L2') && /behind/.test(w))).toBe(true);
-    expect(Math.abs(fix.residuals[2].offsetDeg)).toBeGreaterThan(170); // unfolded for one-way lines
-    expect(fix.warnings.some((w) => w.includes('L0'))).toBe(false);
+    expect(fix).toMatchObject({ ok: false, reason: 'behind-one-way' });
+    if (fix.ok) return;
+    expect(fix.message).toMatch(/behind line L2/);
+    expect(fix.message).not.toMatch(/L0/);
   });
 });
 

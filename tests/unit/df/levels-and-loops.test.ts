@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
-  dbmToSUnits, excessOverNoiseDb, impedanceRatioFromTurns, loopCheck, loopCircumferenceM, manMadeNoiseFamDb,
+  dbmToSUnits, excessOverNoiseDb, manMadeNoiseInfo, impedanceRatioFromTurns, loopCheck, loopCircumferenceM, manMadeNoiseFamDb,
   nearFieldRadiusM, noisePowerDbm, NULL_SIGMA_PRESETS_DEG, nullWidthToSigmaDeg, sanityWarnings, sUnitsToDbm, wavelengthM,
 } from '@/lib/df';
 
@@ -13,6 +13,32 @@ describe('S-meter, IARU Region 1 Technical Recommendation R.1', () => {
     expect(dbmToSUnits(-85, 7e6)).toMatchObject({ sUnits: 7, overS9Db: 0, label: 'S7' });
     expect(dbmToSUnits(-63, 7e6)).toMatchObject({ sUnits: 9, overS9Db: 10, label: 'S9+10 dB' });
     expect(dbmToSUnits(-93, 50e6).label).toBe('S9');
+  });
+  it('labels at exact boundaries: whole decibels first, then the S-unit reached and the dB above it', () => {
+    // S9 = -73 dBm and 6 dB per unit (IARU R.1, recalled from memory); "S8+3 dB" between units is
+    // the labelling asked for in issue 9 (this project's convention)
+    expect(dbmToSUnits(-73, 7e6).label).toBe('S9');
+    expect(dbmToSUnits(-73.4, 7e6).label).toBe('S9');
+    expect(dbmToSUnits(-76, 7e6).label).toBe('S8+3 dB');
+    expect(dbmToSUnits(-79, 7e6).label).toBe('S8');
+    expect(dbmToSUnits(-78.6, 7e6).label).toBe('S8');
+    expect(dbmToSUnits(-78.4, 7e6).label).toBe('S8+1 dB');
+    expect(dbmToSUnits(-72.6, 7e6).label).toBe('S9');
+    expect(dbmToSUnits(-72.4, 7e6).label).toBe('S9+1 dB');
+    expect(dbmToSUnits(-127, 7e6).label).toBe('S0');
+    expect(dbmToSUnits(-140, 7e6).label).toBe('S0');
+    expect(dbmToSUnits(-76, 7e6).sUnits).toBeCloseTo(8.5, 10);
+  });
+});
+
+describe('ITU-R P.372 validity range (0.3-250 MHz, recalled from memory of the Recommendation)', () => {
+  it('warns outside the range, not inside', () => {
+    expect(manMadeNoiseInfo('residential', 7e6).warning).toBeUndefined();
+    expect(manMadeNoiseInfo('residential', 7e6).famDb).toBeCloseTo(49.09, 2);
+    expect(manMadeNoiseInfo('residential', 137e3).warning).toMatch(/0.3 to 250 MHz/);
+    expect(manMadeNoiseInfo('city', 400e6).warning).toMatch(/extrapolation/);
+    expect(manMadeNoiseInfo('galactic', 3e6).warning).toMatch(/ionosphere/);
+    expect(manMadeNoiseInfo('rural', -1).warning).toBeDefined();
   });
 });
 

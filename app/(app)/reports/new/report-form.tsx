@@ -2,24 +2,21 @@
 
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { FormProvider, useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
-import { reportSchema, type ReportInput } from '@/lib/validation/cases';
-import { callApi } from '@/lib/api/client';
+import { FormProvider } from 'react-hook-form';
+import { reportSchema } from '@/lib/validation/cases';
+import { useApiForm } from '@/lib/api/use-api-form';
+import { FormProblemBox } from '@/components/ui/form-problem';
 import type { CaseDetail } from '@/lib/hunt/views';
 import type { Role } from '@/db/types';
 import { TextField } from '@/components/ui/text-field';
 import { NoticeBox } from '@/components/ui/notice-box';
 import { TextAreaField } from '@/components/ui/form-fields';
-import { applyServerIssues } from '@/lib/api/apply-server-issues';
 import { SoundChoice } from './sound-choice';
 import { FrequencyRows, emptyFrequency } from './frequency-rows';
 import { LevelInput } from './level-input';
 import { ScheduleInput } from './schedule-input';
 import { PositionInput } from './position-input';
 
-type ReportOutput = z.output<typeof reportSchema>;
 type Filed = { case: CaseDetail; possibleDuplicate: { id: string; reference: string; title: string } | null };
 
 const COMMITTEE: Role[] = ['coordinator', 'admin'];
@@ -28,10 +25,14 @@ const FIELDS = ['title', 'sound', 'soundNote', 'description', 'frequencies', 'le
 /** A member's noise report; on success opens the new case. */
 export function ReportForm() {
   const router = useRouter();
-  const [problem, setProblem] = useState<string | null>(null);
   const [filed, setFiled] = useState<Filed | null>(null);
-  const form = useForm<ReportInput, unknown, ReportOutput>({
-    resolver: zodResolver(reportSchema),
+  const { form, submit, problem } = useApiForm<typeof reportSchema, Filed>(reportSchema, {
+    request: () => ({ url: '/api/cases' }),
+    onSuccess: (data) => {
+      setFiled(data);
+      router.push(`/cases/${data.case.id}?filed=1`);
+    },
+    fieldFor: (p) => (FIELDS.includes(p.split('.')[0]) ? p : null),
     defaultValues: {
       title: '',
       soundNote: '',
@@ -41,19 +42,7 @@ export function ReportForm() {
       consentShareName: false,
     },
   });
-  const { register, handleSubmit, formState, setError } = form;
-
-  async function onSubmit(values: ReportOutput) {
-    setProblem(null);
-    const r = await callApi<Filed>('/api/cases', { body: values });
-    if (r.ok) {
-      setFiled(r.data);
-      router.push(`/cases/${r.data.case.id}?filed=1`);
-      return;
-    }
-    const rest = applyServerIssues(r.issues, setError, (p) => FIELDS.includes(p.split('.')[0]));
-    setProblem([r.error, ...rest].join(' '));
-  }
+  const { register, formState } = form;
 
   if (filed)
     return (
@@ -65,10 +54,10 @@ export function ReportForm() {
 
   return (
     <FormProvider {...form}>
-      <form onSubmit={handleSubmit(onSubmit)} className="card space-y-6" noValidate aria-describedby={problem ? 'report-problem' : undefined}>
+      <form onSubmit={submit} className="card space-y-6" noValidate aria-describedby={problem ? 'report-problem' : undefined}>
         {problem && (
           <div id="report-problem">
-            <NoticeBox tone="error">{problem}</NoticeBox>
+            <FormProblemBox problem={problem} />
           </div>
         )}
         <TextField id="title" label="Short title" placeholder="e.g. Buzz on 80 m most evenings" error={formState.errors.title} registration={register('title')} />

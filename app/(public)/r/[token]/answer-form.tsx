@@ -2,35 +2,32 @@
 
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import { callApi } from '@/lib/api/client';
+import { useApiForm } from '@/lib/api/use-api-form';
 import { NoticeBox } from '@/components/ui/notice-box';
-import { ANSWER_KINDS, answerSchema, type AnswerInput } from '@/lib/validation/notices';
+import { FormProblemBox } from '@/components/ui/form-problem';
+import { ANSWER_KINDS, answerSchema } from '@/lib/validation/notices';
 
 export function AnswerForm({ token }: { token: string }) {
   const router = useRouter();
   const [done, setDone] = useState<string | null>(null);
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, watch, formState, reset } = useForm<AnswerInput>({
-    resolver: zodResolver(answerSchema),
+  const { form, submit, problem } = useApiForm<typeof answerSchema, { message: string }>(answerSchema, {
     defaultValues: { kind: undefined, message: '', contact: '' },
+    request: () => ({ url: `/api/r/${encodeURIComponent(token)}/answers` }),
+    // The answer's paths are its own fields (kind, message, contact) even while they are empty.
+    fieldFor: (p) => (['kind', 'message', 'contact'].includes(p) ? p : null),
+    onSuccess: (data) => {
+      setDone(data.message);
+      form.reset({ kind: undefined, message: '', contact: '' });
+      router.refresh();
+    },
   });
+  const { register, watch, formState } = form;
   const kind = watch('kind');
 
-  async function onSubmit(values: AnswerInput) {
-    setProblem(null);
-    const r = await callApi<{ message: string }>(`/api/r/${encodeURIComponent(token)}/answers`, { body: values });
-    if (!r.ok) return setProblem(r.error);
-    setDone(r.data.message);
-    reset({ kind: undefined, message: '', contact: '' });
-    router.refresh();
-  }
-
   return (
-    <form onSubmit={handleSubmit(onSubmit)} className="space-y-4" noValidate>
+    <form onSubmit={submit} className="space-y-4" noValidate>
       {done && <NoticeBox title="Answer sent">{done}</NoticeBox>}
-      {problem && <NoticeBox tone="error">{problem}</NoticeBox>}
+      <FormProblemBox problem={problem} />
       <fieldset className="space-y-2" aria-describedby={formState.errors.kind ? 'kind-error' : undefined}>
         <legend className="label">What would you like to tell the club?</legend>
         {Object.entries(ANSWER_KINDS).map(([value, label]) => (

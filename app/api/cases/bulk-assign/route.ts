@@ -1,10 +1,9 @@
 import { route, json, readJson } from '@/lib/api/handler';
 import { requireUser } from '@/lib/auth/session';
 import { inTransaction } from '@/db';
-import { lockCase } from '@/db/cases';
+import { lockVisibleCase } from '@/lib/hunt/case-detail';
 import { bulkAssignSchema } from '@/lib/validation/queue';
 import { assignLockedCase } from '@/lib/hunt/assign';
-import { notFound } from '@/lib/errors';
 
 /** Coordinators: assign (or unassign) up to 100 cases at once; all of them or none. */
 export const POST = route(async (req) => {
@@ -14,9 +13,8 @@ export const POST = route(async (req) => {
     let n = 0;
     // Locks in id order, so two bulk assignments never wait on each other in a circle.
     for (const id of [...new Set(input.caseIds)].sort()) {
-      const current = await lockCase(trx, id);
-      if (!current) throw notFound(`No case with id ${id}: nothing was assigned.`);
-      if (await assignLockedCase(trx, me, current, input.assigneeId)) n++;
+      const { row } = await lockVisibleCase(trx, me, id);
+      if (await assignLockedCase(trx, me, row, input.assigneeId)) n++;
     }
     return n;
   });

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { route, json, readJson } from '@/lib/api/handler';
 import { requireUser } from '@/lib/auth/session';
 import { inTransaction } from '@/db';
-import { countActiveAdmins, getUserById, updateUser } from '@/db/users';
+import { countActiveAdmins, getUserById, lockAdminChanges, lockUserForChange, updateUser } from '@/db/users';
 import { userPatchSchema } from '@/lib/validation/users';
 import { conflict, notFound } from '@/lib/errors';
 
@@ -14,12 +14,11 @@ export const PATCH = route<{ id: string }>(async (req, ctx) => {
   await requireUser('admin');
   const patch = userPatchSchema.parse(await readJson(req));
   const updated = await inTransaction(async (trx) => {
-    const target = await trx('users').where({ id }).forUpdate().first('id', 'role', 'active');
+    const target = await lockUserForChange(trx, id);
     if (!target) throw notFound('No such user.');
     const losesAdmin = target.role === 'admin' && target.active && (patch.role && patch.role !== 'admin' || patch.active === false);
     if (losesAdmin) {
-      // Serialise admin changes so two admins cannot demote each other at the same moment.
-      await trx.raw('select pg_advisory_xact_lock(4711)');
+      await lockAdminChanges(trx);
       if ((await countActiveAdmins(trx)) <= 1) throw conflict('This is the last active admin; make someone else admin first.');
     }
     return updateUser(trx, id, patch);

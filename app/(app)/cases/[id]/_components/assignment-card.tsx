@@ -4,8 +4,8 @@ import useSWR from 'swr';
 import { useState } from 'react';
 import { fetchJson } from '@/lib/api/client';
 import type { CaseDetail, PersonRef } from '@/lib/hunt/views';
-import { ActionMessageBox } from './action-message';
-import { useCaseAction } from './use-case-action';
+import { ActionMessageBox } from '@/components/ui/action-message';
+import { useCaseAction } from '@/components/hunt/use-case-action';
 import { CardSection } from './card-section';
 
 const personWords = (p: PersonRef) => (p.callSign ? `${p.name} (${p.callSign})` : p.name);

@@ -1,42 +1,25 @@
 'use client';
 
-import { useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import type { z } from 'zod';
 import { commentSchema } from '@/lib/validation/cases';
-import { callApi } from '@/lib/api/client';
-import type { EventView } from '@/lib/hunt/views';
-import { NoticeBox } from '@/components/ui/notice-box';
-import { applyServerIssues } from '@/lib/api/apply-server-issues';
+import { useApiForm } from '@/lib/api/use-api-form';
+import { FormProblemBox } from '@/components/ui/form-problem';
 import { TextAreaField } from '@/components/ui/form-fields';
-
-type CommentIn = z.input<typeof commentSchema>;
-type CommentOut = z.output<typeof commentSchema>;
 
 /** Add to the timeline; a hunter may also say the premises are confirmed on foot. */
 export function CommentBox({ caseId, canConfirm, onPosted }: { caseId: string; canConfirm: boolean; onPosted: () => Promise<unknown> }) {
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, formState, reset, setError } = useForm<CommentIn, unknown, CommentOut>({
-    resolver: zodResolver(commentSchema),
+  const { form, submit, problem, pending } = useApiForm(commentSchema, {
     defaultValues: { text: '', premisesConfirmed: false },
-  });
-
-  async function onSubmit(values: CommentOut) {
-    setProblem(null);
-    const r = await callApi<EventView>(`/api/cases/${caseId}/comments`, { body: values });
-    if (r.ok) {
-      reset({ text: '', premisesConfirmed: false });
+    request: () => ({ url: `/api/cases/${caseId}/comments` }),
+    onSuccess: async () => {
+      form.reset({ text: '', premisesConfirmed: false });
       await onPosted();
-    } else {
-      const rest = applyServerIssues(r.issues, setError, (p) => p === 'text' || p === 'premisesConfirmed');
-      setProblem([r.error, ...rest].join(' '));
-    }
-  }
+    },
+  });
+  const { register, formState } = form;
 
   return (
-    <form onSubmit={handleSubmit(onSubmit)} noValidate className="space-y-3 border-t border-ink/10 pt-3" aria-label="Add a comment" data-testid="comment-box">
-      {problem && <NoticeBox tone="error">{problem}</NoticeBox>}
+    <form onSubmit={submit} noValidate className="space-y-3 border-t border-ink/10 pt-3" aria-label="Add a comment" data-testid="comment-box">
+      <FormProblemBox problem={problem} />
       <TextAreaField id="comment-text" label="Add a comment" rows={3} registration={register('text')} error={formState.errors.text?.message} />
       {canConfirm && (
         <div>
@@ -49,8 +32,8 @@ export function CommentBox({ caseId, canConfirm, onPosted }: { caseId: string; c
           </p>
         </div>
       )}
-      <button type="submit" className="btn-primary" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? 'Posting…' : 'Post comment'}
+      <button type="submit" className="btn-primary" disabled={pending}>
+        {pending ? 'Posting…' : 'Post comment'}
       </button>
     </form>
   );

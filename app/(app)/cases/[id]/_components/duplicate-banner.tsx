@@ -4,8 +4,8 @@ import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import type { CaseDetail } from '@/lib/hunt/views';
-import { ActionMessageBox } from './action-message';
-import { useCaseAction } from './use-case-action';
+import { ActionMessageBox } from '@/components/ui/action-message';
+import { useCaseAction } from '@/components/hunt/use-case-action';
 
 /** For coordinators: a likely duplicate filed earlier nearby; merge this case into it after a confirm step. */
 export function DuplicateBanner({ c, refresh }: { c: CaseDetail; refresh: () => Promise<unknown> }) {

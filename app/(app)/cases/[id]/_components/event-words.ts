@@ -8,7 +8,7 @@ const num = (v: unknown) => (typeof v === 'number' && Number.isFinite(v) ? v : u
 const EVIDENCE: Record<string, string> = { fix: 'the fix is small enough', premises: 'the hunter confirmed the premises' };
 
 function bearingWords(d: Record<string, unknown>): string {
-  const az = num(d.azimuthTrueDeg) ?? num(d.azimuthDeg);
+  const az = num(d.azimuthTrueDeg);
   const sigma = num(d.sigmaDeg);
   if (az === undefined) return 'a bearing';
   return `a bearing ${az.toFixed(1)}° true${sigma !== undefined ? ` (±${+sigma.toFixed(1)}°)` : ''}`;
@@ -19,7 +19,6 @@ function statusDetails(d: Record<string, unknown>): string {
   const bits: string[] = [];
   const evidence = str(d.evidence);
   if (evidence) bits.push(EVIDENCE[evidence] ?? evidence);
-  if (str(d.why)) bits.push(str(d.why)!);
   if (str(d.deliveredOn)) bits.push(`letter delivered by hand on ${d.deliveredOn}`);
   const outcome = str(d.outcome);
   if (outcome) bits.push(OUTCOMES[outcome as keyof typeof OUTCOMES] ?? outcome);
@@ -74,11 +73,11 @@ export function eventWords(e: EventView): string {
     case 'follow-up-prepared':
       return 'No answer yet: a follow-up notice is drafted, waiting for approval';
     case 'duplicate-flagged':
-      return `Possible duplicate of ${str(d.reference) ?? str(d.ofReference) ?? 'an earlier case'} noticed`;
+      return `Possible duplicate of ${str(d.reference) ?? 'an earlier case'} noticed`;
     default:
       return `${who}: ${e.kind.replace(/-/g, ' ')}`;
   }
 }
 
 /** The free text an event carries (a comment, or a status change's note). */
-export const eventText = (e: EventView) => str(e.data?.text) ?? str(e.data?.note) ?? str(e.data?.message);
+export const eventText = (e: EventView) => str(e.data?.text) ?? str(e.data?.note);

@@ -8,9 +8,9 @@ import { BearingForm } from '@/components/hunt/bearing-form';
 import { CautionList } from '@/components/cautions';
 import { DoorsSection } from '@/components/hunt/doors-section';
 import { useDoors } from '@/components/hunt/use-doors';
-import { BearingList } from './bearing-list';
+import { BearingList } from '@/components/hunt/bearing-list';
 import { ConvergenceTrail } from './convergence-trail';
-import { FixSummary } from './fix-summary';
+import { FixSummary } from '@/components/hunt/fix-summary';
 import { CardSection } from './card-section';
 
 type LatLon = { lat: number; lon: number };
@@ -63,7 +63,7 @@ export function HuntPanel({
       <DoorsSection doors={doors} canConfirm={c.can.hunt} point={picked} onConfirmed={refresh} />
       {fix && <ConvergenceTrail trail={fix.trail} />}
       {bearings ? (
-        <BearingList caseId={c.id} bearings={bearings} outlierIds={outlierIds} canHunt={c.can.hunt} refresh={refresh} />
+        <BearingList caseId={c.id} bearings={bearings} outlierIds={outlierIds} canEdit={c.can.hunt} refresh={refresh} detail />
       ) : (
         <p className="text-ink-soft">Loading the bearings…</p>
       )}

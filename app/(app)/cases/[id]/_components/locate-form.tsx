@@ -17,15 +17,15 @@ function fixAgainstLimit(fix: FixView | undefined, limitM: number): string {
   return `Error ellipse semi-major ${metres(m)} against the club’s limit of ${metres(limitM)}: ${m <= limitM ? 'small enough' : 'too large'}.`;
 }
 
-export function LocateForm({ c, fix, send, busy, onCancel }: TransitionFormProps & { fix?: FixView }) {
-  const { form, submit } = useTransitionForm(locatedSchema, { to: 'located', version: c.version, evidence: fix?.locatable === false ? 'premises' : 'fix', note: '' }, send);
+export function LocateForm({ c, fix, onDone, onCancel }: TransitionFormProps & { fix?: FixView }) {
+  const { form, submit, problem, pending } = useTransitionForm(locatedSchema, { to: 'located', version: c.version, evidence: fix?.locatable === false ? 'premises' : 'fix', note: '' }, { c, onDone });
   const { register, formState } = form;
   const evidence = [
     { value: 'fix', title: 'The current fix', text: fixAgainstLimit(fix, c.locateThresholdM) },
     { value: 'premises', title: 'Premises confirmed by the hunter', text: 'The hunter walked past on public ground and the level peaked at one address.' },
   ];
   return (
-    <TransitionFormShell title="Mark as located" submitLabel="Mark as located" busy={busy} onSubmit={submit} onCancel={onCancel}>
+    <TransitionFormShell title="Mark as located" submitLabel="Mark as located" busy={pending} problem={problem} onSubmit={submit} onCancel={onCancel}>
       <fieldset className="space-y-2" aria-describedby={formState.errors.evidence ? 'evidence-error' : undefined}>
         <legend className="label">What shows where the source is?</legend>
         {evidence.map((e) => (

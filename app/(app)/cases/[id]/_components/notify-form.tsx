@@ -12,11 +12,11 @@ const today = () => {
   return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
 };
 
-export function NotifyForm({ c, send, busy, onCancel }: TransitionFormProps) {
-  const { form, submit } = useTransitionForm(notifiedSchema, { to: 'notified', version: c.version, method: 'hand-delivered', deliveredOn: today(), note: '' }, send);
+export function NotifyForm({ c, onDone, onCancel }: TransitionFormProps) {
+  const { form, submit, problem, pending } = useTransitionForm(notifiedSchema, { to: 'notified', version: c.version, method: 'hand-delivered', deliveredOn: today(), note: '' }, { c, onDone });
   const { register, formState } = form;
   return (
-    <TransitionFormShell title="Hand-delivered letter" submitLabel="Record as delivered" busy={busy} onSubmit={submit} onCancel={onCancel}>
+    <TransitionFormShell title="Hand-delivered letter" submitLabel="Record as delivered" busy={pending} problem={problem} onSubmit={submit} onCancel={onCancel}>
       <p className="text-sm text-ink-soft">Record a printed letter that someone from the committee put through the neighbour’s door.</p>
       <TextField id="delivered-on" type="date" max={today()} label="Delivered on" error={formState.errors.deliveredOn} registration={register('deliveredOn')} />
       <TextAreaField id="notify-note" label="Note (optional)" registration={register('note')} error={formState.errors.note?.message} />

@@ -5,10 +5,10 @@ import { TextAreaField } from '@/components/ui/form-fields';
 import { reopenSchema } from './transition-schemas';
 import { useTransitionForm, type TransitionFormProps } from './use-transition-form';
 
-export function ReopenForm({ c, send, busy, onCancel }: TransitionFormProps) {
-  const { form, submit } = useTransitionForm(reopenSchema, { to: 'open', version: c.version, reason: '' }, send);
+export function ReopenForm({ c, onDone, onCancel }: TransitionFormProps) {
+  const { form, submit, problem, pending } = useTransitionForm(reopenSchema, { to: 'open', version: c.version, reason: '' }, { c, onDone });
   return (
-    <TransitionFormShell title="Back to open" submitLabel="Reopen the case" busy={busy} onSubmit={submit} onCancel={onCancel}>
+    <TransitionFormShell title="Back to open" submitLabel="Reopen the case" busy={pending} problem={problem} onSubmit={submit} onCancel={onCancel}>
       <TextAreaField
         id="reopen-reason"
         label="Why does the case go back to open?"

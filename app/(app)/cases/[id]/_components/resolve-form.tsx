@@ -9,16 +9,16 @@ import { useTransitionForm, type TransitionFormProps } from './use-transition-fo
 
 const OUTCOME_OPTIONS = Object.entries(OUTCOMES).map(([value, label]) => ({ value, label }));
 
-export function ResolveForm({ c, send, busy, onCancel }: TransitionFormProps) {
-  const { form, submit } = useTransitionForm(
+export function ResolveForm({ c, onDone, onCancel }: TransitionFormProps) {
+  const { form, submit, problem, pending } = useTransitionForm(
     resolvedSchema,
     { to: 'resolved', version: c.version, outcome: undefined as never, levelBeforeDbm: c.report.levelDbm ?? undefined, note: '' },
-    send,
+    { c, onDone },
   );
   const { register, formState } = form;
   const levelError = (key: 'levelBeforeDbm' | 'levelAfterDbm') => plainMessage(formState.errors[key], 'A level in dBm between −170 and 0, or leave it empty.');
   return (
-    <TransitionFormShell title="Close with an outcome" submitLabel="Resolve the case" busy={busy} onSubmit={submit} onCancel={onCancel}>
+    <TransitionFormShell title="Close with an outcome" submitLabel="Resolve the case" busy={pending} problem={problem} onSubmit={submit} onCancel={onCancel}>
       <SelectField
         id="resolve-outcome"
         label="Outcome"

@@ -3,13 +3,12 @@
 import { useState } from 'react';
 import type { CaseStatus } from '@/db/types';
 import type { CaseDetail, FixView } from '@/lib/hunt/views';
-import { ActionMessageBox } from './action-message';
+import { ActionMessageBox } from '@/components/ui/action-message';
+import type { ActionMessage } from '@/components/hunt/use-case-action';
 import { LocateForm } from './locate-form';
 import { NotifyForm } from './notify-form';
 import { ResolveForm } from './resolve-form';
 import { ReopenForm } from './reopen-form';
-import { useCaseAction } from './use-case-action';
-import type { SendTransition } from './use-transition-form';
 import { CardSection } from './card-section';
 
 const LABELS: Record<CaseStatus, string> = {
@@ -22,20 +21,20 @@ const LABELS: Record<CaseStatus, string> = {
 /** The status changes the caller may make (can.transitions), each behind its own small form. */
 export function StatusActions({ c, fix, refresh }: { c: CaseDetail; fix?: FixView; refresh: () => Promise<unknown> }) {
   const [open, setOpen] = useState<CaseStatus | null>(null);
-  const action = useCaseAction(refresh);
+  const [message, setMessage] = useState<ActionMessage | null>(null);
   const choices = c.can.transitions.filter((t) => t !== c.status);
-  if (choices.length === 0 && !action.message) return null;
+  if (choices.length === 0 && !message) return null;
 
-  const send: SendTransition = async (body) => {
-    const r = await action.run(`/api/cases/${c.id}/transitions`, { body: { ...body, version: c.version } }, `The case is now ${body.to}.`);
-    if (r.ok || r.status === 409) setOpen(null);
-    return r;
+  const onDone = async (m: ActionMessage) => {
+    setMessage(m);
+    setOpen(null);
+    await refresh();
   };
-  const props = { c, send, busy: action.busy, onCancel: () => setOpen(null) };
+  const props = { c, onDone, onCancel: () => setOpen(null) };
 
   return (
     <CardSection id="status-actions" title="Move the case on" testId="status-actions">
-      <ActionMessageBox message={action.message} />
+      <ActionMessageBox message={message} />
       {open === null && (
         <div className="flex flex-wrap gap-2">
           {choices.map((t) => (
@@ -44,7 +43,7 @@ export function StatusActions({ c, fix, refresh }: { c: CaseDetail; fix?: FixVie
               type="button"
               className={t === 'open' ? 'btn-quiet' : 'btn-primary'}
               onClick={() => {
-                action.setMessage(null);
+                setMessage(null);
                 setOpen(t);
               }}
             >

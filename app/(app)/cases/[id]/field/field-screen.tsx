@@ -9,7 +9,6 @@ import { BearingList } from '@/components/hunt/bearing-list';
 import { BottomSheet } from '@/components/hunt/bottom-sheet';
 import { FixSummary } from '@/components/hunt/fix-summary';
 import { formatLatLon } from '@/components/hunt/format-position';
-import { HuntWarnings } from '@/components/hunt/hunt-warnings';
 import { SweepEntry } from '@/components/hunt/sweep-entry';
 import { useHuntData } from '@/components/hunt/use-hunt-data';
 import { DoorsSection } from '@/components/hunt/doors-section';
@@ -114,11 +113,12 @@ export function FieldScreen({ caseId }: { caseId: string }) {
         {saved && <NoticeBox tone="info">{saved}</NoticeBox>}
       </div>
 
-      <FixSummary fix={fix} />
-      <HuntWarnings fix={fix} />
+      <div className="card">
+        <FixSummary fix={fix} />
+      </div>
       <DoorsSection doors={doors} canConfirm={canHunt} point={selected?.position ?? null} onConfirmed={() => void refresh()} />
       {!canHunt && <p className="text-ink-soft">You can follow this hunt but not add bearings to it.</p>}
-      <BearingList caseId={caseId} bearings={bearings ?? []} outlierIds={outlierIds} canEdit={canHunt} onChanged={refresh} />
+      <BearingList caseId={caseId} bearings={bearings ?? []} outlierIds={outlierIds} canEdit={canHunt} refresh={refresh} />
 
       <p className="text-sm text-ink-soft">
         Public ground only · never touch or climb utility hardware · never confront anyone · local law and the regulator decide.{' '}

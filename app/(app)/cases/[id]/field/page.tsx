@@ -2,14 +2,16 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { z } from 'zod';
 import { requirePageUser } from '@/lib/auth/session';
+import { db } from '@/db';
+import { getCaseWithRight } from '@/db/cases';
 import { FieldScreen } from './field-screen';
 
 export const metadata: Metadata = { title: 'In the field' };
 
-/** The phone screen for hunting one case; the API checks access to the case itself. */
+/** The phone screen for hunting one case (the one access rule: a case this user may not see is not found). */
 export default async function FieldPage({ params }: { params: Promise<{ id: string }> }) {
-  await requirePageUser('admin', 'coordinator', 'hunter');
+  const me = await requirePageUser('admin', 'coordinator', 'hunter');
   const { id } = await params;
-  if (!z.uuid().safeParse(id).success) notFound();
+  if (!z.uuid().safeParse(id).success || !(await getCaseWithRight(db, me, id, 'view'))) notFound();
   return <FieldScreen caseId={id} />;
 }

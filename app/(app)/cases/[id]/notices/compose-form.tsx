@@ -1,26 +1,30 @@
 'use client';
 
 import { useEffect, useState } from 'react';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import useSWR from 'swr';
 import { callApi, fetchJson } from '@/lib/api/client';
 import type { Premises } from '@/db/premises';
+import { useApiForm } from '@/lib/api/use-api-form';
+import { FormProblemBox } from '@/components/ui/form-problem';
 import { TextField } from '@/components/ui/text-field';
 import { NoticeBox } from '@/components/ui/notice-box';
 import { TEMPLATE_KEYS, TEMPLATE_TITLES } from '@/lib/notices/templates';
-import { noticeCreateSchema, type NoticeInput } from '@/lib/validation/notices';
+import { noticeCreateSchema } from '@/lib/validation/notices';
 import type { NoticeView } from '@/lib/notices/views';
 
 type Elsewhere = { caseId: string; reference: string; title: string; status: string }[];
 
 export function ComposeForm({ caseId, onCreated }: { caseId: string; onCreated: (id: string) => void }) {
-  const [problem, setProblem] = useState<string | null>(null);
   const [elsewhere, setElsewhere] = useState<Elsewhere>([]);
-  const { register, handleSubmit, formState, watch, reset, setError, setValue, getValues } = useForm<NoticeInput>({
-    resolver: zodResolver(noticeCreateSchema),
+  const { form, submit, problem, pending } = useApiForm<typeof noticeCreateSchema, { notice: NoticeView }>(noticeCreateSchema, {
     defaultValues: { templateKey: 'first-notice', recipientName: 'The householder', postalAddress: '', email: '', personalNote: '' },
+    request: () => ({ url: `/api/cases/${caseId}/notices` }),
+    onSuccess: (data) => {
+      form.reset();
+      onCreated(data.notice.id);
+    },
   });
+  const { register, formState, watch, getValues, setValue } = form;
   const address = watch('postalAddress');
   // The confirmed premises pre-fill the address (one line per part); it stays editable.
   const premises = useSWR<{ premises: Premises | null }>(`/api/cases/${caseId}/premises`, fetchJson).data?.premises;
@@ -32,27 +36,17 @@ export function ComposeForm({ caseId, onCreated }: { caseId: string; onCreated: 
   useEffect(() => {
     if (!address || address.trim().length < 5) return setElsewhere([]);
     const t = setTimeout(async () => {
-      const r = await callApi<{ sameAddressElsewhere: Elsewhere }>(`/api/cases/${caseId}/notices?address=${encodeURIComponent(address)}`);
-      if (r.ok) setElsewhere(r.data.sameAddressElsewhere);
+      const r = await callApi<{ sameAddressElsewhere?: Elsewhere }>(`/api/cases/${caseId}/notices?address=${encodeURIComponent(address)}`);
+      if (r.ok) setElsewhere(r.data.sameAddressElsewhere ?? []);
     }, 400);
     return () => clearTimeout(t);
   }, [address, caseId]);
 
-  async function onSubmit(values: NoticeInput) {
-    setProblem(null);
-    const r = await callApi<{ notice: NoticeView }>(`/api/cases/${caseId}/notices`, { body: values });
-    if (!r.ok) {
-      for (const i of r.issues ?? []) setError(i.path as keyof NoticeInput, { message: i.message });
-      return setProblem(r.error);
-    }
-    reset();
-    onCreated(r.data.notice.id);
-  }
 
   const e = formState.errors;
   return (
-    <form onSubmit={handleSubmit(onSubmit)} className="space-y-3" noValidate>
-      {problem && <NoticeBox tone="error">{problem}</NoticeBox>}
+    <form onSubmit={submit} className="space-y-3" noValidate>
+      <FormProblemBox problem={problem} />
       <div>
         <label htmlFor="notice-template" className="label">
           Kind of notice
@@ -92,7 +86,7 @@ export function ComposeForm({ caseId, onCreated }: { caseId: string; onCreated: 
         <textarea id="notice-note" rows={3} className="field" aria-invalid={!!e.personalNote} {...register('personalNote')} />
         {e.personalNote && <p className="mt-1 text-sm font-semibold text-alarm-600">{e.personalNote.message}</p>}
       </div>
-      <button type="submit" className="btn-primary w-full sm:w-auto" disabled={formState.isSubmitting}>
+      <button type="submit" className="btn-primary w-full sm:w-auto" disabled={pending}>
         Save draft
       </button>
     </form>

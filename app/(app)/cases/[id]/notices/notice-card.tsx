@@ -4,7 +4,7 @@ import { useRef, useState } from 'react';
 import { callApi } from '@/lib/api/client';
 import { NoticeBox } from '@/components/ui/notice-box';
 import { TEMPLATE_TITLES, type TemplateKey } from '@/lib/notices/templates';
-import type { NoticeView } from '@/lib/notices/views';
+import { hasContact, type NoticeItem } from '@/lib/notices/views';
 import { NoticePreview } from './notice-preview';
 
 const today = () => new Date().toISOString().slice(0, 10);
@@ -18,8 +18,8 @@ export function NoticeCard({
   onChanged,
 }: {
   caseId: string;
-  n: NoticeView;
-  can: { draft: boolean; decide: boolean };
+  n: NoticeItem;
+  can: { contact: boolean; decide: boolean };
   open: boolean;
   onToggle: () => void;
   onChanged: () => void;
@@ -40,45 +40,51 @@ export function NoticeCard({
     onChanged();
   }
 
-  const waiting = n.status === 'queued' && n.delivery;
+  const contact = hasContact(n) ? n : null;
+  const waiting = n.status === 'queued' && contact?.delivery;
   return (
     <article className="card space-y-2" aria-labelledby={`notice-${n.id}`}>
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h3 id={`notice-${n.id}`} className="font-bold break-words">
-          {TEMPLATE_TITLES[n.templateKey as TemplateKey] ?? n.templateKey} to {n.recipientName}
+          {TEMPLATE_TITLES[n.templateKey as TemplateKey] ?? n.templateKey}
+          {contact ? ` to ${contact.recipientName}` : ''}
         </h3>
         <span className="rounded-full bg-hush-50 px-2 py-0.5 text-sm font-semibold" data-testid="notice-status">
           {n.statusLabel}
         </span>
       </div>
-      <p className="text-sm whitespace-pre-line text-ink-soft break-words">{n.postalAddress}</p>
-      {n.email && <p className="text-sm break-all">{n.email}</p>}
-      {waiting && n.delivery!.lastError && (
+      {contact && <p className="text-sm whitespace-pre-line text-ink-soft break-words">{contact.postalAddress}</p>}
+      {contact?.email && <p className="text-sm break-all">{contact.email}</p>}
+      {waiting && contact.delivery!.lastError && (
         <NoticeBox tone="warn" title="Waiting to send">
-          The mail server did not take it yet (try {n.delivery!.attempts}): {n.delivery!.lastError}. Quietfix keeps trying
-          {n.delivery!.nextAttemptAt ? `; next at ${new Date(n.delivery!.nextAttemptAt).toLocaleTimeString('en-GB')}` : ''}. Nothing is lost.
+          The mail server did not take it yet (try {contact.delivery!.attempts}): {contact.delivery!.lastError}. Quietfix keeps trying
+          {contact.delivery!.nextAttemptAt ? `; next at ${new Date(contact.delivery!.nextAttemptAt).toLocaleTimeString('en-GB')}` : ''}. Nothing is lost.
         </NoticeBox>
       )}
-      {n.status === 'failed' && n.delivery && (
+      {n.status === 'failed' && contact?.delivery && (
         <NoticeBox tone="error" title="Sending failed">
-          After {n.delivery.attempts} tries the mail server still refused: {n.delivery.lastError}
+          After {contact.delivery.attempts} tries the mail server still refused: {contact.delivery.lastError}
         </NoticeBox>
       )}
-      {n.answers > 0 && <p className="text-sm font-semibold">{n.answers === 1 ? 'One answer' : `${n.answers} answers`} from the household (see the timeline).</p>}
+      {!!contact?.answers && <p className="text-sm font-semibold">{contact.answers === 1 ? 'One answer' : `${contact.answers} answers`} from the household (see the timeline).</p>}
       {problem && <NoticeBox tone="error">{problem}</NoticeBox>}
       <div className="flex flex-wrap gap-2">
-        <button type="button" className="btn-quiet" aria-expanded={open} onClick={onToggle}>
-          {open ? 'Hide preview' : 'Preview'}
-        </button>
-        <a className="btn-quiet" href={`${base}/letter`} target="_blank" rel="noreferrer">
-          Letter (PDF)
-        </a>
+        {can.contact && (
+          <>
+            <button type="button" className="btn-quiet" aria-expanded={open} onClick={onToggle}>
+              {open ? 'Hide preview' : 'Preview'}
+            </button>
+            <a className="btn-quiet" href={`${base}/letter`} target="_blank" rel="noreferrer">
+              Letter (PDF)
+            </a>
+          </>
+        )}
         {can.decide && n.status === 'draft' && (
           <button type="button" className="btn-primary" disabled={busy} onClick={() => act('approve', { version: n.version })}>
             Approve
           </button>
         )}
-        {can.decide && n.status === 'approved' && n.email && (
+        {can.decide && n.status === 'approved' && contact?.email && (
           <button type="button" className="btn-primary" disabled={busy} onClick={() => act('send', { idempotencyKey: sendKey.current })}>
             Send by e-mail
           </button>
@@ -108,7 +114,7 @@ export function NoticeCard({
           </button>
         </form>
       )}
-      {open && <NoticePreview url={`${base}/preview`} version={n.version} />}
+      {open && can.contact && <NoticePreview url={`${base}/preview`} version={n.version} />}
     </article>
   );
 }

@@ -4,13 +4,13 @@ import useSWR from 'swr';
 import { useState } from 'react';
 import { fetchJson } from '@/lib/api/client';
 import { NoticeBox } from '@/components/ui/notice-box';
-import type { NoticeView } from '@/lib/notices/views';
+import type { NoticeItem } from '@/lib/notices/views';
 import { ComposeForm } from './compose-form';
 import { NoticeCard } from './notice-card';
 
 export type NoticeList = {
-  items: NoticeView[];
-  can: { read: boolean; draft: boolean; decide: boolean };
+  items: NoticeItem[];
+  can: { read: boolean; contact: boolean; draft: boolean; decide: boolean };
   caseStatus: string;
 };
 
@@ -35,7 +35,9 @@ export function NoticesScreen({ caseId }: { caseId: string }) {
               refresh();
             }}
           />
-        ) : null}
+        ) : (
+          <p className="text-ink-soft">Coordinators write and send the notices; the household’s details stay with them. Tell them what you found in a comment.</p>
+        )}
         <p className="text-sm text-ink-soft">
           Keep it friendly: the letter explains and offers help. The club has no authority; the national regulator decides. The reporter’s name
           appears only if they agreed.

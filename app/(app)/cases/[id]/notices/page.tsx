@@ -3,19 +3,19 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { z } from 'zod';
 import { requirePageUser } from '@/lib/auth/session';
-import { getCase } from '@/db/cases';
-import { caseAccess } from '@/lib/hunt/access';
+import { db } from '@/db';
+import { getCaseWithRight } from '@/db/cases';
 import { noticeAccess } from '@/lib/notices/service';
 import { NoticesScreen } from './notices-screen';
 
 export const metadata: Metadata = { title: 'Notices' };
 
-/** Compose, preview, approve and send the case's notices (committee; the assigned hunter may draft). */
+/** Compose, preview, approve and send the case's notices (committee; the assigned hunter sees that they exist and their status). */
 export default async function NoticesPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const me = await requirePageUser();
-  const c = z.uuid().safeParse(id).success ? await getCase(id) : undefined;
-  if (!c || !caseAccess(me, c).view) notFound();
+  const c = z.uuid().safeParse(id).success ? await getCaseWithRight(db, me, id, 'view') : undefined;
+  if (!c) notFound();
   if (!noticeAccess(me, c).read) {
     return <p className="card">Notices are for the committee and the assigned hunter.</p>;
   }

@@ -2,10 +2,9 @@ import { route, json, readJson } from '@/lib/api/handler';
 import { requireUser } from '@/lib/auth/session';
 import { inTransaction } from '@/db';
 import { listBearings } from '@/db/bearings';
-import { lockCase } from '@/db/cases';
 import { getClubSettings } from '@/db/settings';
 import { bearingInputSchema } from '@/lib/validation/bearings';
-import { caseIdSchema, loadVisibleCase } from '@/lib/hunt/case-detail';
+import { caseIdSchema, loadVisibleCase, lockVisibleCase } from '@/lib/hunt/case-detail';
 import { addBearing } from '@/lib/hunt/bearings';
 import { bearingWithFix } from '@/lib/hunt/fix';
 import { toBearingView } from '@/lib/hunt/to-view';
@@ -25,9 +24,10 @@ export const GET = route<{ id: string }>(async (_req, ctx) => {
 export const POST = route<{ id: string }>(async (req, ctx) => {
   const { id } = caseIdSchema.parse(await ctx.params);
   const me = await requireUser('admin', 'coordinator', 'hunter');
-  await loadVisibleCase(me, id);
-  const input = bearingInputSchema.parse(await readJson(req));
-  const settings = await getClubSettings();
-  const saved = await inTransaction(async (trx) => addBearing(trx, me, (await lockCase(trx, id))!, settings, input));
-  return json(await bearingWithFix(id, saved.id, settings), 201);
+  const body = await readJson(req);
+  const saved = await inTransaction(async (trx) => {
+    const { row } = await lockVisibleCase(trx, me, id);
+    return addBearing(trx, me, row, await getClubSettings(trx), bearingInputSchema.parse(body));
+  });
+  return json(await bearingWithFix(id, saved.id), 201);
 });

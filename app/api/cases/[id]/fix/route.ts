@@ -1,6 +1,5 @@
 import { route, json } from '@/lib/api/handler';
 import { requireUser } from '@/lib/auth/session';
-import { getClubSettings } from '@/db/settings';
 import { caseIdSchema, loadVisibleCase } from '@/lib/hunt/case-detail';
 import { fixView } from '@/lib/hunt/fix';
 import { forbidden } from '@/lib/errors';
@@ -11,5 +10,5 @@ export const GET = route<{ id: string }>(async (_req, ctx) => {
   const me = await requireUser('admin', 'coordinator', 'hunter');
   const { access } = await loadVisibleCase(me, id);
   if (!access.seeHunt) throw forbidden('The fix is for the committee and the assigned hunter.');
-  return json(await fixView(id, await getClubSettings()));
+  return json(await fixView(id));
 });

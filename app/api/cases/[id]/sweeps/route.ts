@@ -1,10 +1,9 @@
 import { route, json, readJson } from '@/lib/api/handler';
 import { requireUser } from '@/lib/auth/session';
 import { inTransaction } from '@/db';
-import { lockCase } from '@/db/cases';
 import { getClubSettings } from '@/db/settings';
 import { sweepInputSchema } from '@/lib/validation/bearings';
-import { caseIdSchema, loadVisibleCase } from '@/lib/hunt/case-detail';
+import { caseIdSchema, lockVisibleCase } from '@/lib/hunt/case-detail';
 import { addSweep } from '@/lib/hunt/bearings';
 import { bearingWithFix } from '@/lib/hunt/fix';
 
@@ -12,9 +11,10 @@ import { bearingWithFix } from '@/lib/hunt/fix';
 export const POST = route<{ id: string }>(async (req, ctx) => {
   const { id } = caseIdSchema.parse(await ctx.params);
   const me = await requireUser('admin', 'coordinator', 'hunter');
-  await loadVisibleCase(me, id);
-  const input = sweepInputSchema.parse(await readJson(req));
-  const settings = await getClubSettings();
-  const saved = await inTransaction(async (trx) => addSweep(trx, me, (await lockCase(trx, id))!, settings, input));
-  return json({ ...(await bearingWithFix(id, saved.id, settings)), sweepFit: saved.sweepFit }, 201);
+  const body = await readJson(req);
+  const saved = await inTransaction(async (trx) => {
+    const { row } = await lockVisibleCase(trx, me, id);
+    return addSweep(trx, me, row, await getClubSettings(trx), sweepInputSchema.parse(body));
+  });
+  return json({ ...(await bearingWithFix(id, saved.id)), sweepFit: saved.sweepFit }, 201);
 });

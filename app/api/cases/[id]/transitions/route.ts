@@ -1,9 +1,8 @@
 import { route, json, readJson } from '@/lib/api/handler';
 import { requireUser } from '@/lib/auth/session';
 import { inTransaction } from '@/db';
-import { lockCase } from '@/db/cases';
 import { transitionSchema } from '@/lib/validation/cases';
-import { caseIdSchema, loadVisibleCase, toCaseDetail } from '@/lib/hunt/case-detail';
+import { caseIdSchema, lockVisibleCase, toCaseDetail } from '@/lib/hunt/case-detail';
 import { applyTransition } from '@/lib/hunt/transitions';
 
 /**
@@ -14,12 +13,11 @@ import { applyTransition } from '@/lib/hunt/transitions';
 export const POST = route<{ id: string }>(async (req, ctx) => {
   const { id } = caseIdSchema.parse(await ctx.params);
   const me = await requireUser('admin', 'coordinator', 'hunter');
-  await loadVisibleCase(me, id);
-  const t = transitionSchema.parse(await readJson(req));
+  const body = await readJson(req);
   const row = await inTransaction(async (trx) => {
-    const current = (await lockCase(trx, id))!;
-    await applyTransition(trx, me, current, t);
-    return (await lockCase(trx, id))!;
+    const { row: current } = await lockVisibleCase(trx, me, id);
+    await applyTransition(trx, me, current, transitionSchema.parse(body));
+    return (await lockVisibleCase(trx, me, id)).row;
   });
   return json(await toCaseDetail(me, row));
 });

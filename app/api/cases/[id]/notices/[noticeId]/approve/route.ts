@@ -9,5 +9,5 @@ export const POST = route<{ id: string; noticeId: string }>(async (req, ctx) => 
   const { me, c, n } = await noticeForRequest(ctx, 'decide');
   const { version } = noticeApproveSchema.parse(await readJson(req));
   await inTransaction((trx) => approve(trx, me, c.id, n.id, version));
-  return json({ notice: await noticeView(c.id, n.id) });
+  return json({ notice: await noticeView(me, c, n.id) });
 });

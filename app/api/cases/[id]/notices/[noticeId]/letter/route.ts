@@ -4,9 +4,9 @@ import { noticeForRequest } from '@/lib/notices/request';
 import { letterPdf } from '@/lib/notices/letter';
 import { renderCurrent } from '@/lib/notices/values';
 
-/** The printable letter (PDF): club name, address, text, response link and its QR code. */
+/** The printable letter (PDF): club name, address, text, response link and its QR code (committee only). */
 export const GET = route<{ id: string; noticeId: string }>(async (_req, ctx) => {
-  const { me, c, n } = await noticeForRequest(ctx, 'read');
+  const { me, c, n } = await noticeForRequest(ctx, 'contact');
   const m = await renderCurrent(db, c, n, me.name);
   const pdf = await letterPdf({
     clubName: m.clubName,

@@ -7,5 +7,5 @@ import { retrySend } from '@/lib/notices/service';
 export const POST = route<{ id: string; noticeId: string }>(async (_req, ctx) => {
   const { me, c, n } = await noticeForRequest(ctx, 'decide');
   await inTransaction((trx) => retrySend(trx, me, c.id, n.id));
-  return json({ notice: await noticeView(c.id, n.id) }, 202);
+  return json({ notice: await noticeView(me, c, n.id) }, 202);
 });

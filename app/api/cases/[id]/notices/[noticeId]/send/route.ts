@@ -12,5 +12,5 @@ export const POST = route<{ id: string; noticeId: string }>(async (req, ctx) => 
   const { me, c, n } = await noticeForRequest(ctx, 'decide');
   const { idempotencyKey } = noticeSendSchema.parse(await readJson(req));
   const { outbox, created } = await inTransaction((trx) => queueSend(trx, me, c.id, n.id, idempotencyKey));
-  return json({ notice: await noticeView(c.id, n.id), messageId: outbox.messageId, alreadyQueued: !created }, created ? 202 : 200);
+  return json({ notice: await noticeView(me, c, n.id), messageId: outbox.messageId, alreadyQueued: !created }, created ? 202 : 200);
 });
