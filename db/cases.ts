@@ -1,7 +1,6 @@
 import type { Knex } from 'knex';
 import { db } from './index';
-import type { CaseEvent, CaseRow, CaseStatus, Role } from './types';
-import type { Page, Paging } from '@/lib/api/paging';
+import type { CaseEvent, CaseRow, Role } from './types';
 import type { CaseRight } from '@/lib/hunt/access';
 import { whereCaseRight } from './case-scope';
 
