@@ -22,6 +22,9 @@ export type ClubSettings = {
   locateThresholdM: number;
   reminderDays: number;
   maxPositionAccuracyM: number;
+  /** ITU-R P.372 environment for the expected man-made noise floor */
+  noiseEnvironment: 'city' | 'residential' | 'rural' | 'quiet-rural';
+  uploadLimitMb: number;
 };
 
 export type Profile = {
