@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { db } from './index';
-import { applyQueueFilter } from './queue';
+import { applyQueueFilter, LIST_COLUMNS } from './queue';
 import type { Role } from './types';
 import type { QueueFilter } from '@/lib/validation/queue';
 
@@ -34,21 +34,7 @@ export async function* exportCaseBatches(viewer: { id: string; role: Role }, f: 
   for (;;) {
     const b = applyQueueFilter(q('cases as c'), viewer, f)
       .leftJoin('users as u', 'u.id', 'c.assignee_id')
-      .select({
-        id: 'c.id',
-        reference: 'c.reference',
-        title: 'c.title',
-        status: 'c.status',
-        bands: 'c.bands',
-        createdAt: 'c.created_at',
-        lastActivityAt: 'c.last_activity_at',
-        assigneeName: 'u.name',
-        fixSizeM: 'c.fix_size_m',
-        noticeCount: 'c.notice_count',
-        outcome: 'c.outcome',
-        levelBeforeDbm: 'c.level_before_dbm',
-        levelAfterDbm: 'c.level_after_dbm',
-      })
+      .select({ ...LIST_COLUMNS, outcome: 'c.outcome', levelBeforeDbm: 'c.level_before_dbm', levelAfterDbm: 'c.level_after_dbm' })
       .select(q.raw('ST_Y(c.map_point) as lat'), q.raw('ST_X(c.map_point) as lon'))
       .orderBy('c.reference')
       .limit(BATCH);

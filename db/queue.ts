@@ -51,6 +51,20 @@ export type QueuePage = {
   dir: 'asc' | 'desc';
 };
 
+/** Columns a list row of cases carries (the query joins the assignee as `u`). */
+export const LIST_COLUMNS = {
+  id: 'c.id',
+  reference: 'c.reference',
+  title: 'c.title',
+  status: 'c.status',
+  bands: 'c.bands',
+  createdAt: 'c.created_at',
+  lastActivityAt: 'c.last_activity_at',
+  fixSizeM: 'c.fix_size_m',
+  noticeCount: 'c.notice_count',
+  assigneeName: 'u.name',
+} as const;
+
 /** The shared filters (queue, map, statistics, exports) on a cases query aliased `c`, inside the viewer's scope. */
 export function applyQueueFilter<B extends Knex.QueryBuilder>(b: B, viewer: Viewer, f: QueueFilter): B {
   whereCaseRight(b, viewer, 'view');
@@ -96,21 +110,7 @@ export function queueQueries(viewer: Viewer, query: QueueQuery, q: Knex = db): {
   };
   const rows = base()
     .leftJoin('users as u', 'u.id', 'c.assignee_id')
-    .select({
-      id: 'c.id',
-      reference: 'c.reference',
-      title: 'c.title',
-      status: 'c.status',
-      bands: 'c.bands',
-      createdAt: 'c.created_at',
-      updatedAt: 'c.updated_at',
-      statusSince: 'c.status_since',
-      lastActivityAt: 'c.last_activity_at',
-      fixSizeM: 'c.fix_size_m',
-      noticeCount: 'c.notice_count',
-      assigneeId: 'c.assignee_id',
-      assigneeName: 'u.name',
-    })
+    .select({ ...LIST_COLUMNS, updatedAt: 'c.updated_at', statusSince: 'c.status_since', assigneeId: 'c.assignee_id' })
     .select(q.raw(`(${key.expr})::text as sort_key`))
     .orderByRaw(`${key.expr} ${dir}, c.id ${dir}`)
     .limit(query.pageSize + 1);

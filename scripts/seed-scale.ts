@@ -33,18 +33,6 @@ async function ensureDatabase() {
   await admin.end();
 }
 
-/** A seeded pseudo-random generator (mulberry32), so every run builds the same club. */
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 const csv = (v: unknown): string => {
   if (v === null || v === undefined) return '\\N';
   if (v instanceof Date) return v.toISOString();
@@ -81,7 +69,7 @@ async function main() {
     console.log(`quietfix: ${SCALE_DB} migrated (${((Date.now() - started) / 1000).toFixed(1)} s)`);
     await db('club_settings').insert({ id: 1, club_name: 'Quillon Radio Circle', contact_email: 'committee@example.test' }).onConflict('id').ignore();
     const hash = await hashPassword(DEMO_PASSWORD);
-    const rand = rng(20261202);
+    const rand = Math.random; // fiction either way; a fresh club each run
     const pick = <T>(xs: readonly T[]) => xs[Math.floor(rand() * xs.length)];
     const now = Date.now();
     const DAY = 86_400_000;

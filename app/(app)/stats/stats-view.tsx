@@ -44,33 +44,22 @@ export function StatsView() {
           </ResponsiveContainer>
         </div>
       </section>
-      <section className="card" aria-labelledby="medians">
-        <h2 id="medians" className="font-bold">Median time per step</h2>
-        <p className="text-sm text-ink-soft">Report to resolved: {days(data.medianDays.reportToResolved)}.</p>
-        <div className="h-56">
-          <ResponsiveContainer>
-            <BarChart data={medians}>
-              <XAxis dataKey="step" fontSize={11} />
-              <YAxis fontSize={11} unit=" d" />
-              <Tooltip />
-              <Bar dataKey="days" fill="#0b5e55" />
-            </BarChart>
-          </ResponsiveContainer>
-        </div>
-      </section>
-      <section className="card" aria-labelledby="outcomes">
-        <h2 id="outcomes" className="font-bold">Outcomes of resolved cases</h2>
-        <div className="h-56">
-          <ResponsiveContainer>
-            <BarChart data={data.outcomes.map((o) => ({ ...o, label: OUTCOMES[o.outcome as keyof typeof OUTCOMES] ?? o.outcome }))} layout="vertical" margin={{ left: 40 }}>
-              <XAxis type="number" fontSize={11} />
-              <YAxis type="category" dataKey="label" width={150} fontSize={11} />
-              <Tooltip />
-              <Bar dataKey="count" fill="#c8780a" />
-            </BarChart>
-          </ResponsiveContainer>
-        </div>
-      </section>
+      <ChartCard id="medians" title="Median time per step" note={`Report to resolved: ${days(data.medianDays.reportToResolved)}.`}>
+        <BarChart data={medians}>
+          <XAxis dataKey="step" fontSize={11} />
+          <YAxis fontSize={11} unit=" d" />
+          <Tooltip />
+          <Bar dataKey="days" fill="#0b5e55" />
+        </BarChart>
+      </ChartCard>
+      <ChartCard id="outcomes" title="Outcomes of resolved cases">
+        <BarChart data={data.outcomes.map((o) => ({ ...o, label: OUTCOMES[o.outcome as keyof typeof OUTCOMES] ?? o.outcome }))} layout="vertical" margin={{ left: 40 }}>
+          <XAxis type="number" fontSize={11} />
+          <YAxis type="category" dataKey="label" width={150} fontSize={11} />
+          <Tooltip />
+          <Bar dataKey="count" fill="#c8780a" />
+        </BarChart>
+      </ChartCard>
       <section className="card" aria-labelledby="reduction">
         <h2 id="reduction" className="font-bold">Noise reduction achieved</h2>
         <p data-testid="stats-reduction">
@@ -105,5 +94,20 @@ export function StatsView() {
         </table>
       </section>
     </div>
+  );
+}
+
+/** One chart with its heading, sized for recharts' ResponsiveContainer. */
+function ChartCard({ id, title, note, children }: { id: string; title: string; note?: string; children: React.ReactElement }) {
+  return (
+    <section className="card" aria-labelledby={id}>
+      <h2 id={id} className="font-bold">
+        {title}
+      </h2>
+      {note && <p className="text-sm text-ink-soft">{note}</p>}
+      <div className="h-56">
+        <ResponsiveContainer>{children}</ResponsiveContainer>
+      </div>
+    </section>
   );
 }
