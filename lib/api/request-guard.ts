@@ -23,16 +23,20 @@ function originOf(value: string | null): string | undefined {
 /**
  * Refuses cross-site state-changing requests: for every method but GET/HEAD/OPTIONS the `Origin`
  * header (or, when a client sends none, the `Referer`) must be one of `allowed`. A request with
- * neither is refused too: browsers send `Origin` on every POST/PUT/PATCH/DELETE, so only scripts
- * omit it, and they can send `Origin: <APP_URL>` like tests/support/http.ts does.
+ * neither is refused too (browsers send `Origin` on every POST/PUT/PATCH/DELETE, so only scripts
+ * omit it, and they can send `Origin: <APP_URL>` like tests/support/http.ts does) unless
+ * `ownToken`: the route checks a CSRF token of its own (next-auth's endpoints), so a script that
+ * sends that token but no Origin (curl) goes on to that check. A foreign Origin is always refused.
  */
-export function assertSameOrigin(req: Request, allowed: ReadonlySet<string>): void {
+export function assertSameOrigin(req: Request, allowed: ReadonlySet<string>, { ownToken = false }: { ownToken?: boolean } = {}): void {
   if (SAFE_METHODS.has(req.method)) return;
   const origin = req.headers.get('origin');
-  const from = origin !== null ? originOf(origin) : originOf(req.headers.get('referer'));
+  const referer = req.headers.get('referer');
+  if (origin === null && !referer && ownToken) return;
+  const from = origin !== null ? originOf(origin) : originOf(referer);
   if (from && allowed.has(from)) return;
   throw forbidden(
-    origin === null && !req.headers.get('referer')
+    origin === null && !referer
       ? 'This request did not say which site sent it (no Origin header), so it was refused.'
       : 'This request came from another site, so it was refused.',
   );

@@ -107,6 +107,17 @@ describe('assertSameOrigin', () => {
   it.each(CASES)('%s %j -> %s', (method, headers, want) => {
     expect(status(() => assertSameOrigin(req(method, headers), allowed))).toBe(want);
   });
+  // A route with its own CSRF token (next-auth) lets a script without Origin reach that check; foreign stays refused.
+  const OWN_TOKEN: [Record<string, string>, number | 'ok'][] = [
+    [{}, 'ok'],
+    [{ origin: ORIGIN }, 'ok'],
+    [{ origin: 'https://evil.example.test' }, 403],
+    [{ origin: 'null' }, 403],
+    [{ referer: 'https://evil.example.test/x' }, 403],
+  ];
+  it.each(OWN_TOKEN)('with its own token: POST %j -> %s', (headers, want) => {
+    expect(status(() => assertSameOrigin(req('POST', headers), allowed, { ownToken: true }))).toBe(want);
+  });
 });
 
 describe('assertBodyKind', () => {

@@ -14,9 +14,10 @@ export const GET = nextAuth;
  * Every credential sign-in is counted before the password is looked at (one atomic upsert per
  * key, lib/auth/throttle.ts): over the limit -> 429 with a plain message and no bcrypt at all,
  * so a parallel burst is evaluated at most up to the limit.
- * next-auth's POSTs are forms (its own CSRF token stays); route() still checks their Origin.
+ * next-auth's POSTs are forms with its own CSRF token: route() refuses a foreign Origin, and a
+ * request with no Origin at all (a script) goes on to that token check.
  */
-export const POST = route<{ nextauth: string[] }>({ body: 'form' }, async (req: NextRequest, ctx: RouteContext<{ nextauth: string[] }>) => {
+export const POST = route<{ nextauth: string[] }>({ body: 'form', ownCsrfToken: true }, async (req: NextRequest, ctx: RouteContext<{ nextauth: string[] }>) => {
   const { nextauth } = await ctx.params;
   if (nextauth?.[0] === 'callback' && nextauth[1] === 'credentials') {
     const form = await req.clone().formData().catch(() => undefined);
