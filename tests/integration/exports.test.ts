@@ -148,7 +148,7 @@ describe('bearings import', () => {
   it('someone without the hunt right may not import, not even a dry run', async () => {
     const member = await signIn('member@example.test');
     const r = await api(`/api/cases/${openId}/bearings/import?dryRun=1`, { session: member, body: BAD, headers: { 'content-type': 'text/csv' } });
-    expect(r.status).toBe(404); // a case the caller may not see is a plain 404
+    expect(r.status).toBe(403); // members never hunt
   });
 
   it('a CSV without the needed columns, or not CSV at all, is a plain 400', async () => {
