@@ -2,6 +2,7 @@ import type { Metadata, Viewport } from 'next';
 import localFont from 'next/font/local';
 import { connection } from 'next/server';
 import './globals.css';
+import { ServiceWorkerRegistrar } from '@/components/field/service-worker-registrar';
 
 // Shipped with the app from the @fontsource-variable/inter package: nothing is fetched at build or run time.
 const inter = localFont({
@@ -25,7 +26,10 @@ export default async function RootLayout({ children }: { children: React.ReactNo
   await connection();
   return (
     <html lang="en" className={inter.variable}>
-      <body className="min-h-dvh font-sans">{children}</body>
+      <body className="min-h-dvh font-sans">
+        {children}
+        <ServiceWorkerRegistrar />
+      </body>
     </html>
   );
 }

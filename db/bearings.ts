@@ -22,6 +22,7 @@ const COLUMNS = {
   sweep: 'b.sweep',
   excluded: 'b.excluded',
   version: 'b.version',
+  clientId: 'b.client_id',
   takenAt: 'b.taken_at',
   createdAt: 'b.created_at',
   updatedAt: 'b.updated_at',
@@ -44,6 +45,7 @@ const WRITABLE = {
   note: 'note',
   excluded: 'excluded',
   takenAt: 'taken_at',
+  clientId: 'client_id',
 } as const;
 export type BearingFields = Partial<Pick<BearingRow, keyof typeof WRITABLE>> & { sweep?: unknown };
 
@@ -76,6 +78,11 @@ export async function listBearings(caseId: string, q: Knex = db): Promise<Bearin
 
 export async function getBearing(caseId: string, id: string, q: Knex = db): Promise<BearingWithAuthor | undefined> {
   return withAuthor(q).where({ 'b.case_id': caseId, 'b.id': id }).first();
+}
+
+/** The bearing a phone already sent under this client id, in any case (client ids are unique). */
+export async function findBearingByClientId(clientId: string, q: Knex = db): Promise<Pick<BearingRow, 'id' | 'caseId' | 'authorId' | 'sweep'> | undefined> {
+  return q('bearings').select({ id: 'id', caseId: 'case_id', authorId: 'author_id', sweep: 'sweep' }).where({ client_id: clientId }).first();
 }
 
 export async function insertBearing(trx: Knex.Transaction, caseId: string, authorId: string, f: BearingFields): Promise<string> {

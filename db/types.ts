@@ -59,6 +59,8 @@ export type BearingRow = {
   sweep: unknown;
   excluded: boolean;
   version: number;
+  /** UUID made by the phone when the bearing was typed (a retried send finds this row) */
+  clientId: string | null;
   takenAt: Date;
   createdAt: Date;
   updatedAt: Date;
@@ -95,5 +97,27 @@ export type CaseEvent = {
   kind: string;
   data: Record<string, unknown>;
   visibility: 'all' | 'committee';
+  createdAt: Date;
+};
+
+/** One level reading of a walked level trail (the field screen's walk mode, or an imported GPX survey). */
+export type LevelReadingRow = {
+  id: string;
+  caseId: string;
+  authorId: string | null;
+  clientId: string | null;
+  source: 'walk' | 'gpx';
+  lat: number;
+  lon: number;
+  /** stated position accuracy, metres */
+  accuracyM: number | null;
+  levelUnit: 'S' | 'dBm';
+  /** as read (S-units continue past S9 at 6 dB each) */
+  levelValue: number;
+  /** at the receiver input, dBm, corrected by the hunter's S-meter offset */
+  levelDbm: number;
+  frequencyKhz: number | null;
+  note: string;
+  takenAt: Date;
   createdAt: Date;
 };

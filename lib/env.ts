@@ -33,6 +33,10 @@ const schema = z.object({
   // Its origin joins the Content-Security-Policy's img-src and connect-src (proxy.ts).
   TILE_URL: z.union([z.literal(''), z.string().regex(/^https?:\/\/\S*\{z\}\S*\{x\}\S*\{y\}/, 'TILE_URL must be an http(s) XYZ template with {z}, {x} and {y}')]).default(''),
   TILE_ATTRIBUTION: z.string().max(500).default(''),
+  // How many tiles "Prepare for the field" may fetch ahead from TILE_URL. 0 (default): none — only
+  // tiles already viewed stay cached. Set it only for a server whose policy allows bulk fetching
+  // (e.g. the club's own); public servers such as OpenStreetMap's forbid it.
+  TILE_PREFETCH_MAX: z.coerce.number().int().min(0).max(5000).default(0),
   // Notices and the outbox worker (lib/notices; the worker process reads the same settings).
   NOTICE_TOKEN_SECRET: z.string().min(16).optional(),
   NOTICE_TOKEN_DAYS: z.coerce.number().int().min(1).max(3650).default(90),

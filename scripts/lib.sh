@@ -71,8 +71,10 @@ ensure_build() {
   stamp=$(cd "$ROOT" && { git ls-files -co --exclude-standard -z -- . ':!tests' ':!scripts' ':!.ci' ':!*.md' \
     | xargs -0 sha1sum 2>/dev/null || true; } | sha1sum | cut -c1-16)
   if [ -f "$ROOT/.next/BUILD_ID" ] && [ "$(cat "$DATA/build-stamp" 2>/dev/null)" = "$stamp" ]; then return 0; fi
-  say "building the app (next build)…"
+  say "building the app (next build, then the service worker: serwist build)…"
   (cd "$ROOT" && node node_modules/next/dist/bin/next build >"$DATA/build.log" 2>&1) || { tail -n 30 "$DATA/build.log" >&2; die "next build failed (full log: .data/build.log)."; }
+  # The field app's service worker (serwist.config.js -> public/sw.js): precaches this build's static output.
+  (cd "$ROOT" && node node_modules/@serwist/cli/cli.js build >>"$DATA/build.log" 2>&1) || { tail -n 30 "$DATA/build.log" >&2; die "serwist build failed (full log: .data/build.log)."; }
   echo "$stamp" >"$DATA/build-stamp"
 }
 

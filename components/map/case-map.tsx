@@ -14,6 +14,7 @@ import type { PlacesHighlight } from './places-layer';
 import { MapTap, type LatLon } from './map-tap';
 import { PLAIN_BACKGROUND } from './map-styles';
 import { PickedPositionMarker } from './picked-position-marker';
+import { LevelTrailLayer, LevelTrailLegend, type LevelTrailProps } from './level-trail-layer';
 
 export type CaseMapProps = {
   bearings: BearingView[];
@@ -28,6 +29,8 @@ export type CaseMapProps = {
   places?: PlacesHighlight;
   /** Move the map here (a new key moves it again). */
   focus?: MapFocus | null;
+  /** The walked level trail (field screen's walk mode) and its smoothed peak. */
+  levelTrail?: LevelTrailProps;
   className?: string;
 };
 
@@ -38,7 +41,7 @@ const WORLD: { center: [number, number]; zoom: number } = { center: [20, 0], zoo
  * The hunt on a map: lines of bearing, crossings, the fix with its 95 % error ellipse, how the
  * fix converged and where to stand next. Browser only (load through CaseMapClient).
  */
-export default function CaseMap({ bearings, fix, reportedPosition, selectedPosition, onMapTap, onSpotSelect, places, focus, className }: CaseMapProps) {
+export default function CaseMap({ bearings, fix, reportedPosition, selectedPosition, onMapTap, onSpotSelect, places, focus, levelTrail, className }: CaseMapProps) {
   const current = fix?.current?.fix;
   const okFix = current && current.ok ? current : null;
   const outlierIds = useMemo(() => new Set(okFix?.outlierIds ?? []), [okFix]);
@@ -49,8 +52,9 @@ export default function CaseMap({ bearings, fix, reportedPosition, selectedPosit
     if (okFix) pts.push(...ellipsePolygon(okFix, okFix.ellipse, 16));
     for (const s of spots) pts.push([s.lat, s.lon]);
     if (reportedPosition) pts.push([reportedPosition.lat, reportedPosition.lon]);
+    for (const p of levelTrail?.points ?? []) pts.push([p.lat, p.lon]);
     return pts;
-  }, [bearings, okFix, spots, reportedPosition]);
+  }, [bearings, okFix, spots, reportedPosition, levelTrail]);
 
   const legend: LegendKey[] = [];
   if (bearings.some((b) => !b.excluded && !outlierIds.has(b.id))) legend.push('bearing');
@@ -88,11 +92,13 @@ export default function CaseMap({ bearings, fix, reportedPosition, selectedPosit
           {reportedPosition && <ReporterMarker position={reportedPosition} />}
           {selectedPosition && <PickedPositionMarker position={selectedPosition} label="next bearing here" />}
           <SpotMarkers spots={spots} onSelect={onSpotSelect} />
+          {levelTrail && <LevelTrailLayer {...levelTrail} />}
           <FlyTo focus={focus} />
           <FitBoundsOnce points={fitPoints} complete={fix !== undefined} refitKey={bearings.filter((b) => !b.excluded).length} />
         </MapContainer>
       </div>
       <CaseMapLegend keys={legend} />
+      {levelTrail && <LevelTrailLegend points={levelTrail.points} />}
     </div>
   );
 }

@@ -8,7 +8,7 @@ export type DevicePosition = { lat: number; lon: number; accuracyM: number; at: 
 /** How long to wait for a device position, milliseconds. */
 const GEO_TIMEOUT_MS = 20_000;
 
-const GEO_ERRORS: Record<number, string> = {
+export const GEO_ERRORS: Record<number, string> = {
   1: 'Location permission is off for this site. Allow it in the browser settings, or tap your spot on the map.',
   2: 'Your device could not find its position. Try again in the open, or tap your spot on the map.',
   3: 'No position within 20 seconds. Try again, or tap your spot on the map.',

@@ -1,4 +1,10 @@
 /** Browser-side JSON calls to our route handlers, with the error body read the same way everywhere. */
+import { STORED_AT_HEADER } from '@/lib/field/cache-names';
+
+/** Event on `window` for every answer: `storedAt` is set when the service worker answered from its copy (offline). */
+export const ANSWER_EVENT = 'quietfix:answer';
+export type AnswerDetail = { url: string; storedAt: string | null };
+
 export type ApiResult<T> =
   | { ok: true; status: number; data: T }
   | { ok: false; status: number; error: string; issues?: { path: string; message: string }[]; body?: Record<string, unknown> };
@@ -11,6 +17,9 @@ export async function callApi<T>(url: string, init: { method?: string; body?: un
       body: init.body === undefined ? undefined : JSON.stringify(init.body),
     });
     const data = await res.json().catch(() => ({}));
+    if (typeof window !== 'undefined') {
+      window.dispatchEvent(new CustomEvent<AnswerDetail>(ANSWER_EVENT, { detail: { url, storedAt: res.headers.get(STORED_AT_HEADER) } }));
+    }
     if (res.ok) return { ok: true, status: res.status, data: data as T };
     return { ok: false, status: res.status, error: data.error ?? `The server answered ${res.status}.`, issues: data.issues, body: data };
   } catch {
@@ -24,3 +33,6 @@ export async function fetchJson<T>(url: string): Promise<T> {
   if (!r.ok) throw new Error(r.error);
   return r.data;
 }
+
+/** Whether the browser says it is offline (a request would fail at once). */
+export const browserOffline = () => typeof navigator !== 'undefined' && navigator.onLine === false;

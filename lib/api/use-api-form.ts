@@ -4,7 +4,7 @@ import { useRef, useState } from 'react';
 import { useForm, type DefaultValues, type FieldValues, type Path, type Resolver, type UseFormReturn } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { callApi, type ApiResult } from './client';
+import { browserOffline, callApi, type ApiResult } from './client';
 
 /** What the form shows above its button when the server said no: its message and the issues no field took. */
 export type FormProblem = { status: number; message: string; code?: string; body?: Record<string, unknown> };
@@ -27,6 +27,21 @@ export type ApiFormOptions<In extends FieldValues, Out, T> = {
   fieldFor?: (path: string) => string | null;
   /** Plain words for generic zod issues (zodResolver's `error` option). */
   errorMap?: z.core.$ZodErrorMap;
+  /**
+   * The phone's offline queue (the field screen gives one): every send then carries a new
+   * `clientId`, and when there is no connection the request is handed to `hold` instead of
+   * failing, and `onHeld` runs.
+   */
+  hold?: ((url: string, body: Record<string, unknown> & { clientId: string }) => Promise<void>) | null;
+  onHeld?: (values: Out) => unknown;
+};
+
+/** An answer that never came back because the request was kept on the phone to be sent later. */
+export const HELD: { ok: false; status: 0; error: string; body: { held: true } } = {
+  ok: false,
+  status: 0,
+  error: 'Kept on this phone: it is sent when the connection returns.',
+  body: { held: true },
 };
 
 /** The value at a dotted path ("samples.2.level") of the form's values, or undefined. */
@@ -72,7 +87,22 @@ export function useApiForm<S extends z.ZodType<any, any, any>, T = unknown>(
     setPending(true);
     const req = opts.request(values);
     const body = req.body === undefined ? values : req.body;
-    const r = await callApi<T>(req.url, { method: req.method ?? 'POST', body: Object.keys(extra).length ? { ...(body as object), ...extra } : body });
+    let payload = Object.keys(extra).length ? { ...(body as object), ...extra } : body;
+    const hold = opts.hold;
+    if (hold) {
+      const p = payload as Record<string, unknown>;
+      payload = { ...p, clientId: typeof p.clientId === 'string' ? p.clientId : crypto.randomUUID() };
+    }
+    const keep = async () => {
+      await hold!(req.url, payload as Record<string, unknown> & { clientId: string });
+      setPending(false);
+      last.current = null;
+      await opts.onHeld?.(values);
+      return HELD;
+    };
+    if (hold && browserOffline()) return keep();
+    const r = await callApi<T>(req.url, { method: req.method ?? 'POST', body: payload });
+    if (hold && !r.ok && r.status === 0) return keep();
     setPending(false);
     if (r.ok) {
       last.current = null;

@@ -25,3 +25,4 @@ export { excessOverNoiseDb } from './excess-over-noise-db';
 export { nullWidthToSigmaDeg, NULL_SIGMA_PRESETS_DEG } from './null-width-to-sigma-deg';
 export { impedanceRatioFromTurns } from './impedance-ratio-from-turns';
 export { whiteningAffine, confidenceRadius, type WhiteningAffine } from './whitening-affine';
+export { trailPeak, type TrailReading, type TrailPeak, type TrailPeakOptions } from './trail-peak';

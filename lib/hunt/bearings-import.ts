@@ -1,7 +1,7 @@
 import { parse } from 'csv-parse/sync';
 import { bearingInputSchema } from '@/lib/validation/bearings';
 import { badRequest } from '@/lib/errors';
-import { trueAzimuth } from './bearings';
+import { trueAzimuth } from './bearing-math';
 
 /** Rows one import may hold. */
 export const IMPORT_MAX_ROWS = 500;

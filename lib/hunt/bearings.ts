@@ -1,42 +1,21 @@
 import type { Knex } from 'knex';
 import type { z } from 'zod';
-import { insertBearing, reviseBearing, type BearingFields, type BearingWithAuthor } from '@/db/bearings';
+import { findBearingByClientId, insertBearing, reviseBearing, type BearingFields, type BearingWithAuthor } from '@/db/bearings';
 import { appendEvent } from '@/db/cases';
 import { getProfile } from '@/db/users';
 import type { CaseRow, ClubSettings, User } from '@/db/types';
-import { declinationInfo, fitNullSweep, magneticToTrue, NULL_SIGMA_PRESETS_DEG, nullWidthToSigmaDeg, sUnitsToDbm } from '@/lib/df';
+import { fitNullSweep, sUnitsToDbm } from '@/lib/df';
+import { foldDeg, resolveSigmaDeg, round, trueAzimuth } from './bearing-math';
 import { AppError, conflict, forbidden } from '@/lib/errors';
 import type { bearingInputSchema, bearingPatchSchema, sweepInputSchema } from '@/lib/validation/bearings';
 import { caseAccess } from './access';
 import { recomputeFix } from './fix';
+import { sameItemOrConflict } from './readings';
 import type { SweepRecord } from './views';
 
 type BearingInput = z.output<typeof bearingInputSchema>;
 type BearingPatch = z.output<typeof bearingPatchSchema>;
 type SweepInput = z.output<typeof sweepInputSchema>;
-
-const round = (x: number, places = 6) => Math.round(x * 10 ** places) / 10 ** places;
-
-/** 1-sigma in degrees: stated, else half the measured null width, else the sharp/fair/broad preset (default fair). */
-export function resolveSigmaDeg(i: Pick<BearingInput, 'sigmaDeg' | 'nullWidthDeg' | 'quality'>): number {
-  if (i.sigmaDeg !== undefined) return i.sigmaDeg;
-  if (i.nullWidthDeg !== undefined) return nullWidthToSigmaDeg(i.nullWidthDeg);
-  return NULL_SIGMA_PRESETS_DEG[i.quality ?? 'fair'];
-}
-
-/** An entered azimuth folded into [0, 360) (lib/df folds the same way inside magneticToTrue; it exports no fold of its own). */
-const foldDeg = (deg: number) => ((deg % 360) + 360) % 360;
-
-/**
- * True azimuth from an entered one: a magnetic bearing goes through lib/df's magneticToTrue (the
- * WMM2025 declination for the place and date), with the model's validity warning when the date is
- * outside it; fixView repeats that warning for every magnetic line it applies to.
- */
-export function trueAzimuth(enteredDeg: number, reference: 'true' | 'magnetic', lat: number, lon: number, when: Date) {
-  if (reference === 'true') return { declinationDeg: 0, azimuthTrueDeg: foldDeg(enteredDeg) };
-  const { declinationDeg, warning } = declinationInfo(lat, lon, when);
-  return { declinationDeg: round(declinationDeg, 3), azimuthTrueDeg: round(magneticToTrue(enteredDeg, lat, lon, when)), ...(warning ? { warning } : {}) };
-}
 
 const pickStored = (a: ReturnType<typeof trueAzimuth>) => ({ declinationDeg: a.declinationDeg, azimuthTrueDeg: a.azimuthTrueDeg });
 
@@ -55,7 +34,7 @@ function assertMayHunt(user: User, row: CaseRow) {
   if (!caseAccess(user, row).hunt) throw forbidden('Only the assigned hunter or a coordinator can add bearings to this case, while it is being hunted.');
 }
 
-type Position = Pick<BearingInput, 'lat' | 'lon' | 'positionSource' | 'positionAccuracyM' | 'accuracyConfirmed' | 'takenAt' | 'frequencyKhz' | 'note'>;
+type Position = Pick<BearingInput, 'clientId' | 'lat' | 'lon' | 'positionSource' | 'positionAccuracyM' | 'accuracyConfirmed' | 'takenAt' | 'frequencyKhz' | 'note'>;
 
 async function saveNewBearing(
   trx: Knex.Transaction,
@@ -65,7 +44,7 @@ async function saveNewBearing(
   p: Position,
   line: { enteredDeg: number; reference: 'true' | 'magnetic'; sigmaDeg: number; nullWidthDeg?: number; oneWay: boolean; sweep?: SweepRecord },
   kind: 'bearing-added' | 'sweep-added',
-) {
+): Promise<{ id: string; repeat: boolean }> {
   assertMayHunt(user, row);
   assertAccuracy(p.positionAccuracyM, p.accuracyConfirmed, settings);
   const takenAt = p.takenAt ? new Date(p.takenAt) : new Date();
@@ -86,6 +65,7 @@ async function saveNewBearing(
     note: p.note,
     takenAt,
     sweep: line.sweep ?? null,
+    clientId: p.clientId ?? null,
   };
   const id = await insertBearing(trx, row.id, user.id, fields);
   await appendEvent(trx, {
@@ -94,11 +74,22 @@ async function saveNewBearing(
     kind,
     data: { bearingId: id, azimuthTrueDeg: az.azimuthTrueDeg, sigmaDeg: line.sigmaDeg, reference: line.reference, oneWay: line.oneWay },
   });
-  const fix = await recomputeFix(trx, row.id, `${kind} ${id}`);
-  return { id, fix };
+  await recomputeFix(trx, row.id, `${kind} ${id}`);
+  return { id, repeat: false };
 }
 
-export function addBearing(trx: Knex.Transaction, user: User, row: CaseRow, settings: ClubSettings, input: BearingInput) {
+/** The bearing this caller already stored under the input's client id in this case (a retried send), or null. */
+async function earlierSend(trx: Knex.Transaction, user: User, row: CaseRow, clientId: string | undefined) {
+  return clientId ? sameItemOrConflict(await findBearingByClientId(clientId, trx), user, row.id) : null;
+}
+
+/**
+ * Adds a typed bearing. A repeat of one already stored (same clientId) stores nothing and
+ * answers the stored bearing (`repeat: true`). Call with the case row locked.
+ */
+export async function addBearing(trx: Knex.Transaction, user: User, row: CaseRow, settings: ClubSettings, input: BearingInput) {
+  const before = await earlierSend(trx, user, row, input.clientId);
+  if (before) return { id: before.id, repeat: true };
   return saveNewBearing(
     trx,
     user,
@@ -116,6 +107,13 @@ export function addBearing(trx: Knex.Transaction, user: User, row: CaseRow, sett
  * converted to true like any typed bearing.
  */
 export async function addSweep(trx: Knex.Transaction, user: User, row: CaseRow, settings: ClubSettings, input: SweepInput) {
+  const before = await earlierSend(trx, user, row, input.clientId);
+  if (before) {
+    // The same fit again from the stored levels (deterministic), so the repeat answers the same body.
+    const stored = before.sweep as SweepRecord;
+    const fit = fitNullSweep(stored.samples.map((s) => ({ azimuthDeg: s.azimuthDeg, levelDbm: s.levelDbm })));
+    return { id: before.id, repeat: true, sweepFit: fit };
+  }
   assertMayHunt(user, row);
   const offset = (await getProfile(user.id, trx))?.sMeterOffsetDb ?? 0;
   const hz = (input.frequencyKhz ?? 7000) * 1000;

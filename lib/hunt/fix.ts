@@ -5,17 +5,11 @@ import { getBearing, listBearings, type BearingWithAuthor } from '@/db/bearings'
 import { fixTrail, insertFixSnapshot, latestFixSnapshot } from '@/db/fixes';
 import { loopCircumferences } from '@/db/users';
 import { getClubSettings } from '@/db/settings';
-import { declinationInfo, estimateFix, sanityWarnings, suggestNextSpots, type Fix, type LineOfBearing, type NextSpotOptions } from '@/lib/df';
+import { declinationInfo, estimateFix, sanityWarnings, suggestNextSpots, type Fix } from '@/lib/df';
 import { notFound } from '@/lib/errors';
 import { toBearingView } from './to-view';
+import { nextSpotOptions, toLines } from './bearing-math';
 import type { BearingView, FixView } from './views';
-
-/** The lines lib/df works on: active bearings, true azimuths, ids = bearing ids. */
-export function toLines(bearings: Pick<BearingWithAuthor, 'id' | 'lat' | 'lon' | 'azimuthTrueDeg' | 'sigmaDeg' | 'oneWay' | 'excluded'>[]): LineOfBearing[] {
-  return bearings
-    .filter((b) => !b.excluded)
-    .map((b) => ({ id: b.id, lat: b.lat, lon: b.lon, azimuthDeg: b.azimuthTrueDeg, sigmaDeg: b.sigmaDeg, oneWay: b.oneWay }));
-}
 
 /** Recomputes the case's fix from its active bearings and keeps a snapshot (the history of the estimate). */
 export async function recomputeFix(trx: Knex.Transaction, caseId: string, cause: string): Promise<Fix> {
@@ -41,22 +35,6 @@ async function setupWarnings(q: Knex, bearings: BearingWithAuthor[], fix: Fix | 
     }
   }
   return [...out];
-}
-
-/**
- * What suggestNextSpots knows about the hunt: the bearings' frequency (median of the active lines
- * that have one; keeps spots out of the near field) and where the hunter last stood (the latest
- * active bearing), so spots within a walk are preferred.
- */
-export function nextSpotOptions(bearings: Pick<BearingWithAuthor, 'lat' | 'lon' | 'excluded' | 'frequencyKhz' | 'takenAt'>[]): NextSpotOptions {
-  const active = bearings.filter((b) => !b.excluded);
-  const khz = active.map((b) => b.frequencyKhz).filter((f): f is number => typeof f === 'number' && f > 0).sort((a, b) => a - b);
-  const latest = active.reduce<(typeof active)[number] | undefined>((a, b) => (!a || new Date(b.takenAt) > new Date(a.takenAt) ? b : a), undefined);
-  return {
-    count: 3,
-    ...(khz.length ? { frequencyHz: khz[khz.length >> 1] * 1000 } : {}),
-    ...(latest ? { from: { lat: latest.lat, lon: latest.lon } } : {}),
-  };
 }
 
 /** The current fix, its convergence trail, where to stand next and what to watch out for. */

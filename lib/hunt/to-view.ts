@@ -25,6 +25,7 @@ export function toBearingView(b: BearingWithAuthor): BearingView {
     sweep: (b.sweep as SweepRecord | null) ?? null,
     excluded: b.excluded,
     version: b.version,
+    clientId: b.clientId,
     revisions: Number(b.revisions),
     takenAt: iso(b.takenAt),
     createdAt: iso(b.createdAt),

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { safeText } from './text';
+import { clientIdSchema } from './client-id';
 
 export const NULL_QUALITY = ['sharp', 'fair', 'broad'] as const;
 
@@ -26,6 +27,8 @@ const reading = {
 
 /** A new bearing or sweep: the defaults live here only (an edit changes only what it names). */
 const base = fields.extend({
+  /** A UUID the phone makes when the bearing is typed: a repeat with the same id stores nothing new. */
+  clientId: clientIdSchema.optional(),
   /** The hunter accepts a device position worse than the club's limit. */
   accuracyConfirmed: z.boolean().default(false),
   oneWay: fields.shape.oneWay.default(false),

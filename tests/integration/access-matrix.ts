@@ -76,6 +76,8 @@ export const ACCESS: Row[] = [
   { name: 'edit a bearing', method: 'PATCH', path: (ids) => `/api/cases/${ids.openCase}/bearings/${ids.openBearing}`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
   { name: 'add a sweep', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/sweeps`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
   { name: 'read the fix', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/fix`, expect: HUNT_READ },
+  { name: 'list level readings', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/readings`, expect: HUNT_READ },
+  { name: 'add a level reading', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/readings`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
   { name: 'read the timeline', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/events`, expect: ALL_SIGNED_IN },
   { name: 'comment', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/comments`, body: () => ({ text: '' }), expect: ALL_SIGNED_IN_BAD_BODY },
   { name: 'merge', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/merge`, body: () => ({}), expect: COMMITTEE_BAD_BODY },

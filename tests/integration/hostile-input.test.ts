@@ -6,6 +6,7 @@
  * fields, characters and positions at random. Also: broken percent-encoding in paths, and bad
  * callback URLs on next-auth's endpoints.
  */
+import { randomUUID } from 'node:crypto';
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '@/db';
@@ -54,6 +55,7 @@ const TARGETS: Target[] = [
   { name: 'change own password', method: 'POST', path: () => '/api/password/change', who: () => member, body: () => ({ current: 'quietfix-demo', password: 'a new long password', confirm: 'a new long password' }), text: ['current', 'password', 'confirm'] },
   { name: 'set a password', method: 'POST', path: () => '/api/password', who: () => undefined, body: () => ({ token: 'T'.repeat(43), password: 'a long password', confirm: 'a long password' }), text: ['token', 'password', 'confirm'] },
   { name: 'answer a notice', method: 'POST', path: () => `/api/r/${ids.token}/answers`, who: () => undefined, body: () => ({ kind: 'contact-me', message: 'Happy to help.', contact: 'house@example.test' }), text: ['kind', 'message', 'contact'] },
+  { name: 'add a level reading', method: 'POST', path: () => `/api/cases/${ids.case}/readings`, who: () => coordinator, body: () => ({ clientId: randomUUID(), lat: -31.4, lon: 129.31, accuracyM: 6, level: { unit: 'S', value: 7 }, frequencyKhz: 7100, takenAt: '2026-12-02T05:00:00Z', note: 'By the gate.' }), text: ['note', 'takenAt', 'clientId', 'level.unit'], other: ['lat', 'level.value', 'accuracyM'] },
 ];
 
 /** Characters no free-text field may hold: NUL, the other C0 controls but tab and newlines, DEL, and lone surrogate halves. */

@@ -2,7 +2,7 @@
 import { db } from '@/db';
 
 /** Tables requests write to (the outbox and sign-in failures change on their own: left out). */
-const TABLES = ['users', 'club_settings', 'cases', 'case_events', 'user_tokens', 'bearings', 'bearing_revisions', 'fix_snapshots', 'notice_templates', 'notices', 'notice_answers'];
+const TABLES = ['users', 'club_settings', 'cases', 'case_events', 'user_tokens', 'bearings', 'bearing_revisions', 'fix_snapshots', 'level_readings', 'notice_templates', 'notices', 'notice_answers'];
 
 export async function rowCounts(): Promise<Record<string, number>> {
   const { rows } = await db.raw(TABLES.map((t) => `select '${t}' as t, count(*)::int as n from ${t}`).join(' union all '));

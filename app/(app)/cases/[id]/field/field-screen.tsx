@@ -1,6 +1,6 @@
 'use client';
 
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import Link from 'next/link';
 import { CaseMapClient } from '@/components/map/case-map-client';
 import { NoticeBox } from '@/components/ui/notice-box';
@@ -14,21 +14,51 @@ import { useHuntData } from '@/components/hunt/use-hunt-data';
 import { DoorsSection } from '@/components/hunt/doors-section';
 import { useDoors } from '@/components/hunt/use-doors';
 import { formatApproxMetres } from '@/components/map/map-geometry';
+import { FieldQueueProvider } from '@/components/field/field-queue-context';
+import { NextSpotsList } from '@/components/field/next-spots-list';
+import { OfflineCopyNotice } from '@/components/field/offline-copy-notice';
+import { OfflineFixCard } from '@/components/field/offline-fix-card';
+import { PrepareArea } from '@/components/field/prepare-area';
+import { QueuePanel } from '@/components/field/queue-panel';
+import { TrailPeakCard } from '@/components/field/trail-peak-card';
+import { useFieldQueue } from '@/components/field/use-field-queue';
+import { useLevelTrail } from '@/components/field/use-level-trail';
+import { usePhonePosition } from '@/components/field/use-phone-position';
+import { WalkPanel } from '@/components/field/walk-panel';
+import { FixFigure } from '@/components/field/fix-figure';
 
 type LatLon = { lat: number; lon: number };
 type Sheet = 'bearing' | 'sweep' | null;
+type Mode = 'bearings' | 'walk';
 
 /**
- * One case in the field, for a phone held in one hand: the map on top, the fix in big type, the
- * lines taken so far, and the actions at the bottom of the screen. Refreshes on its own (another
- * hunter's lines appear) and when the phone wakes.
+ * One case in the field, for a phone held in one hand: the map on top, the fix in big type (also
+ * in the action bar, so it is never hidden under it), the lines taken so far, and the actions at
+ * the bottom of the screen. Two modes: bearings, and the walk (level readings to the peak).
+ * Works without a connection: the service worker keeps the last copy (and says when it was
+ * loaded), and what is typed waits in the phone's queue until it can be sent. Refreshes on its
+ * own (another hunter's lines appear) and when the phone wakes.
  */
 export function FieldScreen({ caseId }: { caseId: string }) {
   const { caseDetail, bearings, fix, error, refresh } = useHuntData(caseId);
   const [sheet, setSheet] = useState<Sheet>(null);
+  const [mode, setMode] = useState<Mode>('bearings');
   const [selected, setSelected] = useState<{ position: LatLon; why: string } | null>(null);
   const [saved, setSaved] = useState<string | null>(null);
   const doors = useDoors(caseId, fix, caseDetail?.can.hunt ?? false);
+  const seeHunt = caseDetail?.can.hunt ?? false;
+  const queue = useFieldQueue(caseId, () => {
+    void refresh();
+    void trailQ.refresh();
+  });
+  const trailQ = useLevelTrail(caseId, queue.items, caseDetail !== undefined);
+  // Paused while a form is open: the form reads the position itself (one request at a time to the phone's GPS).
+  const phone = usePhonePosition(seeHunt && sheet === null);
+  const lastQueued = useRef(false);
+  const hold = async (url: string, body: Record<string, unknown> & { clientId: string }) => {
+    lastQueued.current = true;
+    await queue.hold(url, body);
+  };
 
   if (error && !caseDetail) {
     return (
@@ -62,24 +92,39 @@ export function FieldScreen({ caseId }: { caseId: string }) {
     defaultFrequencyKhz: caseDetail.report.frequenciesKhz?.[0],
     selectedPosition: selected?.position ?? null,
     onSaved: () => {
+      const what = sheet === 'sweep' ? 'Sweep' : 'Bearing';
       setSheet(null);
       setSelected(null);
-      setSaved(sheet === 'sweep' ? 'Sweep saved; the fix is updated.' : 'Bearing saved; the fix is updated.');
+      setSaved(lastQueued.current ? `${what} kept on this phone: it is sent when the connection returns.` : `${what} saved; the fix is updated.`);
+      lastQueued.current = false;
       void refresh();
     },
   };
 
   return (
-    <div className={`space-y-3 ${sheet ? 'pb-[72dvh]' : 'pb-28'}`}>
+    <FieldQueueProvider value={hold}>
+    <div className={`space-y-3 ${sheet ? 'pb-[72dvh]' : 'pb-32'}`}>
       <header className="flex items-start justify-between gap-2">
         <div className="min-w-0">
           <p className="font-mono text-sm text-ink-soft">{caseDetail.reference}</p>
           <h1 className="text-xl leading-tight font-extrabold">{caseDetail.title}</h1>
         </div>
-        <Link href={`/cases/${caseId}`} className="btn-quiet shrink-0 text-sm">
+        <Link href={`/cases/${caseId}`} className="btn-quiet min-h-12 shrink-0 text-sm">
           Case page
         </Link>
       </header>
+
+      <OfflineCopyNotice prefix={`/api/cases/${caseId}`} />
+
+      {canHunt && (
+        <div role="group" aria-label="Field mode" className="grid grid-cols-2 gap-2">
+          {(['bearings', 'walk'] as const).map((m) => (
+            <button key={m} type="button" aria-pressed={mode === m} className={`${mode === m ? 'btn-primary' : 'btn-quiet'} min-h-12`} onClick={() => setMode(m)}>
+              {m === 'bearings' ? 'Bearings' : 'Walk'}
+            </button>
+          ))}
+        </div>
+      )}
 
       <CaseMapClient
         className="h-[45dvh] min-h-64"
@@ -97,6 +142,7 @@ export function FieldScreen({ caseId }: { caseId: string }) {
         }}
         places={doors.highlight}
         focus={doors.focus}
+        levelTrail={trailQ.trail.points.length ? trailQ.trail : undefined}
       />
 
       <div aria-live="polite" className="space-y-2">
@@ -113,12 +159,47 @@ export function FieldScreen({ caseId }: { caseId: string }) {
         {saved && <NoticeBox tone="info">{saved}</NoticeBox>}
       </div>
 
+      <QueuePanel queue={queue} />
+      {mode === 'walk' && canHunt && (
+        <>
+          <WalkPanel
+            caseId={caseId}
+            queue={queue}
+            position={phone.position}
+            positionError={phone.error}
+            tapped={selected?.position ?? null}
+            defaultFrequencyKhz={caseDetail.report.frequenciesKhz?.[0]}
+            onSaved={() => void trailQ.refresh()}
+          />
+          <TrailPeakCard
+            trail={trailQ.trail}
+            onUse={(p) => {
+              setSaved(null);
+              setSelected({ position: p, why: 'the walk’s level peak' });
+            }}
+          />
+        </>
+      )}
       <div className="card">
         <FixSummary fix={fix} />
       </div>
+      <OfflineFixCard bearings={bearings ?? []} queued={queue.items} />
+      {mode === 'bearings' && (
+        <NextSpotsList
+          bearings={bearings ?? []}
+          serverSpots={fix?.nextSpots ?? []}
+          from={phone.position}
+          onPick={(s) => {
+            setSaved(null);
+            setSelected({ position: { lat: s.lat, lon: s.lon }, why: `suggested spot, ellipse ${formatApproxMetres(s.expectedSemiMajorM)} expected` });
+          }}
+        />
+      )}
       <DoorsSection doors={doors} canConfirm={canHunt} point={selected?.position ?? null} onConfirmed={() => void refresh()} />
       {!canHunt && <p className="text-ink-soft">You can follow this hunt but not add bearings to it.</p>}
       <BearingList caseId={caseId} bearings={bearings ?? []} outlierIds={outlierIds} canEdit={canHunt} refresh={refresh} />
+
+      {canHunt && <PrepareArea caseId={caseId} centre={f && f.ok ? { lat: f.lat, lon: f.lon } : (caseDetail.reportedPosition ?? null)} />}
 
       <p className="text-sm text-ink-soft">
         Public ground only · never touch or climb utility hardware · never confront anyone · local law and the regulator decide.{' '}
@@ -127,14 +208,23 @@ export function FieldScreen({ caseId }: { caseId: string }) {
 
       {canHunt && (
         // Stays under an open sheet so the focus can return to the button that opened it.
-        <div className="fixed inset-x-0 bottom-0 z-[1050] border-t border-ink/15 bg-white/95 px-3 pt-2 pb-[max(0.75rem,env(safe-area-inset-bottom))] backdrop-blur">
-          <div className="mx-auto flex max-w-2xl gap-2">
-            <button type="button" className="btn-primary min-h-14 flex-[2] text-lg" onClick={() => setSheet('bearing')}>
-              Add bearing
-            </button>
-            <button type="button" className="btn-quiet min-h-14 flex-1 text-lg" onClick={() => setSheet('sweep')}>
-              Sweep
-            </button>
+        <div data-testid="action-bar" className="fixed inset-x-0 bottom-0 z-[1050] border-t border-ink/15 bg-white/95 px-3 pt-2 pb-[max(0.75rem,env(safe-area-inset-bottom))] backdrop-blur">
+          <div className="mx-auto flex max-w-2xl items-center gap-2">
+            <FixFigure fix={fix} waiting={queue.waiting.length} />
+            {mode === 'bearings' ? (
+              <>
+                <button type="button" className="btn-primary min-h-14 flex-[2] text-lg" onClick={() => setSheet('bearing')}>
+                  Add bearing
+                </button>
+                <button type="button" className="btn-quiet min-h-14 flex-1 text-lg" onClick={() => setSheet('sweep')}>
+                  Sweep
+                </button>
+              </>
+            ) : (
+              <p className="flex-[3] text-base font-semibold" data-testid="walk-bar">
+                {trailQ.trail.points.length} {trailQ.trail.points.length === 1 ? 'reading' : 'readings'} on the walk
+              </p>
+            )}
           </div>
         </div>
       )}
@@ -149,5 +239,6 @@ export function FieldScreen({ caseId }: { caseId: string }) {
         </BottomSheet>
       )}
     </div>
+    </FieldQueueProvider>
   );
 }

@@ -20,7 +20,7 @@ export const GET = route<{ id: string }>(async (_req, ctx) => {
   return json({ items, total: items.length, page: 1, pageSize: items.length });
 });
 
-/** Adds a bearing; the fix is recomputed and a snapshot kept, in the same transaction. */
+/** Adds a bearing; the fix is recomputed and a snapshot kept, in the same transaction. A repeat of the same clientId answers 200 with the stored bearing. */
 export const POST = route<{ id: string }>(async (req, ctx) => {
   const { id } = caseIdSchema.parse(await ctx.params);
   const me = await requireUser('admin', 'coordinator', 'hunter');
@@ -29,5 +29,5 @@ export const POST = route<{ id: string }>(async (req, ctx) => {
     const { row } = await lockVisibleCase(trx, me, id);
     return addBearing(trx, me, row, await getClubSettings(trx), bearingInputSchema.parse(body));
   });
-  return json(await bearingWithFix(id, saved.id), 201);
+  return json(await bearingWithFix(id, saved.id), saved.repeat ? 200 : 201);
 });

@@ -7,7 +7,7 @@ import { caseIdSchema, lockVisibleCase } from '@/lib/hunt/case-detail';
 import { addSweep } from '@/lib/hunt/bearings';
 import { bearingWithFix } from '@/lib/hunt/fix';
 
-/** A rotation sweep (loop-axis angle and level readings) becomes a bearing through lib/df fitNullSweep. */
+/** A rotation sweep (loop-axis angle and level readings) becomes a bearing through lib/df fitNullSweep; a repeat of the same clientId answers 200 with the stored one. */
 export const POST = route<{ id: string }>(async (req, ctx) => {
   const { id } = caseIdSchema.parse(await ctx.params);
   const me = await requireUser('admin', 'coordinator', 'hunter');
@@ -16,5 +16,5 @@ export const POST = route<{ id: string }>(async (req, ctx) => {
     const { row } = await lockVisibleCase(trx, me, id);
     return addSweep(trx, me, row, await getClubSettings(trx), sweepInputSchema.parse(body));
   });
-  return json({ ...(await bearingWithFix(id, saved.id)), sweepFit: saved.sweepFit }, 201);
+  return json({ ...(await bearingWithFix(id, saved.id)), sweepFit: saved.sweepFit }, saved.repeat ? 200 : 201);
 });

@@ -1,0 +1,213 @@
+/**
+ * The hunt without signal, in a real browser at 360 × 640 against the production build (its
+ * service worker from `serwist build`): open a case online, go offline, reload (the screen comes
+ * from the service worker and says what it shows), add a bearing and two level readings, see them
+ * queued and kept across a reload, go online, see each on the server exactly once (a forced
+ * second send stores nothing new), and see a refused item with the server's reason. Screenshots
+ * of the field screen, walk mode and the queue go to test-results/field/. Geometry from
+ * GeographicLib (Karney 2013) toward an invented source on open land.
+ */
+import { expect, test, type Page } from '@playwright/test';
+import { signInPage } from '../support/sign-in-page';
+import { api, signIn, type Session } from '../support/http';
+import { noiseReport } from '../support/fixtures';
+import { geodesicDirect, geodesicInverse } from '../../lib/df/internal/geodesy';
+
+const SOURCE = { lat: -31.7132, lon: 129.2127 };
+const spot = (fromSourceDeg: number, rangeM: number) => {
+  const o = geodesicDirect(SOURCE.lat, SOURCE.lon, fromSourceDeg, rangeM);
+  const az = geodesicInverse(o.lat, o.lon, SOURCE.lat, SOURCE.lon).azi1;
+  return { lat: o.lat, lon: o.lon, azimuthDeg: Math.round((((az % 360) + 360) % 360) * 10) / 10 };
+};
+const SHOTS = 'test-results/field';
+
+type Counts = { bearings: number; readings: number };
+async function serverCounts(s: Session, caseId: string): Promise<Counts> {
+  const [b, r] = await Promise.all([api(`/api/cases/${caseId}/bearings`, { session: s }), api(`/api/cases/${caseId}/readings`, { session: s })]);
+  return { bearings: b.json.total, readings: r.json.total };
+}
+
+/** Every item in the phone's IndexedDB queue (read straight from the browser's store). */
+const queuedInBrowser = (page: Page) =>
+  page.evaluate(
+    () =>
+      new Promise<{ clientId: string; url: string; body: Record<string, unknown>; state: string }[]>((resolve, reject) => {
+        const open = indexedDB.open('quietfix-field');
+        open.onerror = () => reject(open.error);
+        open.onsuccess = () => {
+          const req = open.result.transaction('queue').objectStore('queue').getAll();
+          req.onsuccess = () => resolve(req.result);
+          req.onerror = () => reject(req.error);
+        };
+      }),
+  );
+
+/** Bytes held in the service worker's precache (Serwist's precache cache). */
+const precacheBytes = (page: Page) =>
+  page.evaluate(async () => {
+    let bytes = 0;
+    let entries = 0;
+    for (const name of await caches.keys()) {
+      if (!name.includes('precache')) continue;
+      const cache = await caches.open(name);
+      for (const req of await cache.keys()) {
+        const res = await cache.match(req);
+        bytes += (await res!.clone().arrayBuffer()).byteLength;
+        entries++;
+      }
+    }
+    return { bytes, entries };
+  });
+
+/** True when two boxes overlap (px). */
+const overlaps = (a: { x: number; y: number; width: number; height: number }, b: { x: number; y: number; width: number; height: number }) =>
+  a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height;
+
+test('offline: the field screen reopens from the service worker, typed items wait and are stored once', async ({ browser }, info) => {
+  test.skip(info.project.name !== 'phone-360', 'one run, at phone width');
+  test.setTimeout(180_000);
+
+  // A case of our own, assigned to the demo hunter, with two lines already stored.
+  const [member, coordinator, hunterApi] = await Promise.all(['member', 'coordinator', 'hunter'].map((w) => signIn(`${w}@example.test`)));
+  const filed = await api('/api/cases', { session: member, body: noiseReport({ title: 'Offline walk test', position: { lat: SOURCE.lat + 0.003, lon: SOURCE.lon + 0.003, source: 'map' } }) });
+  expect(filed.status, filed.text).toBe(201);
+  const caseId: string = filed.json.case.id;
+  const hunterId: string = (await api('/api/auth/session', { session: hunterApi })).json.user.id;
+  const c = (await api(`/api/cases/${caseId}`, { session: coordinator })).json;
+  expect((await api(`/api/cases/${caseId}`, { method: 'PATCH', session: coordinator, body: { version: c.version, assigneeId: hunterId } })).status).toBe(200);
+  for (const s of [spot(20, 420), spot(140, 380)]) {
+    const r = await api(`/api/cases/${caseId}/bearings`, { session: hunterApi, body: { lat: s.lat, lon: s.lon, positionSource: 'map', reference: 'true', azimuthDeg: s.azimuthDeg, quality: 'sharp' } });
+    expect(r.status, r.text).toBe(201);
+  }
+  const third = spot(260, 400);
+  const context = await browser.newContext({
+    viewport: { width: 360, height: 640 },
+    isMobile: true,
+    hasTouch: true,
+    geolocation: { latitude: third.lat, longitude: third.lon, accuracy: 6 },
+    permissions: ['geolocation'],
+  });
+  const page = await context.newPage();
+  await signInPage(page, 'hunter@example.test');
+
+  // 1. Online: open the field screen; once the worker controls the page, load it again so the
+  //    page and its data go into the worker's caches.
+  await page.goto(`/cases/${caseId}/field`);
+  await expect(page.getByTestId('fix-summary')).toContainText('±');
+  await page.evaluate(async () => {
+    await navigator.serviceWorker.ready;
+  });
+  await page.reload();
+  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller)).toBe(true);
+  await expect(page.getByTestId('fix-summary')).toContainText('±');
+  await expect(page.getByTestId('case-map').locator('.qf-bearing')).toHaveCount(2);
+  const manifest = await page.request.get('/manifest.webmanifest');
+  expect(manifest.status()).toBe(200);
+  expect((await manifest.json()).short_name).toBe('Quietfix');
+
+  // The 360 × 640 layout: nav on one line, the fix figure never under the action bar, map ≥ 40 %, buttons ≥ 48 px.
+  const header = await page.locator('header').first().boundingBox();
+  expect(header!.height).toBeLessThanOrEqual(64);
+  const bar = (await page.getByTestId('action-bar').boundingBox())!;
+  await expect(page.getByTestId('bar-fix')).toContainText('±');
+  await page.getByTestId('fix-summary').scrollIntoViewIfNeeded();
+  const figure = (await page.getByTestId('fix-summary').locator('p').first().boundingBox())!;
+  expect(overlaps(figure, bar), `fix figure ${JSON.stringify(figure)} vs bar ${JSON.stringify(bar)}`).toBe(false);
+  const map = (await page.getByTestId('case-map').locator('.leaflet-container').boundingBox())!;
+  expect(map.height / 640).toBeGreaterThanOrEqual(0.4);
+  for (const target of [...['Add bearing', 'Sweep', 'Bearings', 'Walk', 'Sign out'].map((name) => page.getByRole('button', { name, exact: true })), page.getByTestId('nav-menu')]) {
+    const box = (await target.boundingBox())!;
+    expect(box.height, (await target.textContent()) ?? "").toBeGreaterThanOrEqual(48);
+  }
+  // The menu opens from the keyboard and lists the pages.
+  await page.getByTestId('nav-menu').focus();
+  await page.keyboard.press('Enter');
+  await expect(page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Cases' })).toBeVisible();
+  await page.keyboard.press('Enter');
+  // Next spots: a list under the fix, each with its distance from where the phone stands.
+  await expect(page.getByTestId('spot-distance').first()).toContainText('from you');
+  const precache = await precacheBytes(page);
+  console.log(`[field] precache: ${precache.entries} entries, ${(precache.bytes / 1e6).toFixed(2)} MB`);
+  expect(precache.entries).toBeGreaterThan(10);
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await page.screenshot({ path: `${SHOTS}/field-screen-360.png` });
+
+  // 2. Offline: a reload still renders, from the worker, and says what it shows.
+  await context.setOffline(true);
+  await page.reload();
+  await expect(page.getByTestId('fix-summary')).toContainText('±');
+  await expect(page.getByTestId('offline-copy')).toContainText('Showing what was last loaded at');
+  await expect(page.getByTestId('case-map').locator('.qf-bearing')).toHaveCount(2);
+
+  // 3. A bearing and two level readings, typed offline.
+  await page.getByRole('button', { name: 'Walk', exact: true }).click();
+  await expect(page.getByTestId('walk-position')).toContainText('±6 m');
+  await page.getByRole('button', { name: 'Bearings', exact: true }).click();
+  await page.getByRole('button', { name: 'Add bearing' }).click();
+  const form = page.getByRole('form', { name: 'Add a bearing' });
+  await form.getByRole('button', { name: 'Use my location' }).click();
+  await expect(form.getByTestId('position-summary')).toContainText('device', { timeout: 30_000 });
+  await form.getByLabel('Azimuth of the null (degrees)').fill(third.azimuthDeg.toFixed(1));
+  await form.getByText('True', { exact: true }).click();
+  await form.getByText('Sharp', { exact: true }).click();
+  await form.getByRole('button', { name: 'Save bearing' }).click();
+  await expect(page.getByText('Bearing kept on this phone')).toBeVisible();
+  await expect(page.getByTestId('offline-fix')).toContainText('Not yet sent');
+  await expect(page.getByTestId('offline-fix')).toContainText('3 lines, 1 of them still waiting');
+
+  await page.getByRole('button', { name: 'Walk', exact: true }).click();
+  await expect(page.getByTestId('walk-position')).toContainText('±6 m');
+  await page.getByRole('group', { name: 'Log the level in S-units' }).getByRole('button', { name: 'S7', exact: true }).click();
+  await expect(page.getByText('S7 kept on this phone (not yet sent).')).toBeVisible();
+  await context.setGeolocation({ latitude: third.lat + 0.0001, longitude: third.lon, accuracy: 5 });
+  await page.getByRole('group', { name: 'Log the level in S-units' }).getByRole('button', { name: 'S9', exact: true }).click();
+  await expect(page.getByTestId('queue-count')).toHaveText('3 waiting to send');
+  await expect(page.getByTestId('trail-peak')).toBeVisible();
+  await page.screenshot({ path: `${SHOTS}/walk-mode-360.png` });
+
+  // Kept across a reload (IndexedDB), still offline.
+  await page.reload();
+  await expect(page.getByTestId('queue-count')).toHaveText('3 waiting to send');
+  await page.getByTestId('queue-panel').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: `${SHOTS}/queue-360.png` });
+  const queued = await queuedInBrowser(page);
+  expect(queued.map((q) => q.url.split('/').pop())).toEqual(expect.arrayContaining(['bearings', 'readings', 'readings']));
+  expect(await serverCounts(hunterApi, caseId)).toEqual({ bearings: 2, readings: 0 });
+
+  // 4. Online again: sent in order, each stored once.
+  const t0 = Date.now();
+  await context.setOffline(false);
+  await expect.poll(() => serverCounts(hunterApi, caseId), { timeout: 20_000, intervals: [100] }).toEqual({ bearings: 3, readings: 2 });
+  const storedMs = Date.now() - t0;
+  await expect(page.getByTestId('queue-panel')).toContainText('All sent: 3 stored on the server.');
+  console.log(`[field] queued 3 items (1 bearing, 2 readings), sent 3; reconnect -> all stored on the server in ${storedMs} ms`);
+  info.annotations.push({ type: 'field figures', description: `queued 3, sent 3, reconnect to stored ${storedMs} ms, precache ${precache.bytes} bytes in ${precache.entries} entries` });
+  await expect(page.getByTestId('offline-fix')).toHaveCount(0);
+  const readings = (await api(`/api/cases/${caseId}/readings`, { session: hunterApi })).json.items;
+  expect(readings.map((r: { level: { value: number } }) => r.level.value)).toEqual([7, 9]);
+
+  // A forced second send of every item (the same clientIds) stores nothing new: 200, same rows.
+  for (const q of queued) {
+    const again = await api(q.url, { session: hunterApi, body: q.body });
+    expect(again.status, again.text).toBe(200);
+  }
+  expect(await serverCounts(hunterApi, caseId)).toEqual({ bearings: 3, readings: 2 });
+
+  // 5. A refused item: typed offline, the case is closed meanwhile, the server's reason stays on screen.
+  await context.setOffline(true);
+  await page.getByRole('button', { name: 'Walk', exact: true }).click();
+  await page.getByRole('group', { name: 'Log the level in S-units' }).getByRole('button', { name: 'S5', exact: true }).click();
+  await expect(page.getByTestId('queue-count')).toHaveText('1 waiting to send');
+  const now = (await api(`/api/cases/${caseId}`, { session: coordinator })).json;
+  const closed = await api(`/api/cases/${caseId}/transitions`, { session: coordinator, body: { to: 'resolved', version: now.version, outcome: 'not-found', note: 'Test: closed while the hunter is offline.' } });
+  expect(closed.status, closed.text).toBe(200);
+  await context.setOffline(false);
+  await expect(page.getByTestId('queue-refused')).toBeVisible({ timeout: 15_000 });
+  await expect(page.getByTestId('refusal-reason')).toContainText('while it is being hunted');
+  await page.getByTestId('queue-refused').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: `${SHOTS}/queue-refused-360.png` });
+  expect((await serverCounts(hunterApi, caseId)).readings).toBe(2);
+  await page.getByTestId('queue-refused').getByRole('button', { name: 'Discard' }).click();
+  await expect(page.getByTestId('queue-refused')).toHaveCount(0);
+  await context.close();
+});
