@@ -21,7 +21,8 @@ test('a coordinator filters the queue and the map follows', async ({ page }, inf
   await expect(page).toHaveURL(/status=resolved/);
   const rows = page.getByTestId('queue-row');
   await expect(rows.first()).toBeVisible();
-  for (const text of await rows.allTextContents()) expect(text).toContain('resolved');
+  // The table keeps the old rows on screen until the new answer is in: wait for it.
+  await expect.poll(async () => (await rows.allTextContents()).every((t) => t.includes('resolved'))).toBe(true);
   // The map asked again with the same filter: no open symbol is left, a resolved one is there.
   await expect(map.locator('.qf-case-open')).toHaveCount(0);
   await expect(map.locator('.qf-case-resolved').first()).toBeVisible();
