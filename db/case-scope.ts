@@ -24,3 +24,6 @@ export function whereCaseRight(b: Knex.QueryBuilder, me: { id: string; role: Rol
     }
   });
 }
+
+/** Coordinators and admins: the committee relation of lib/hunt/access.ts. */
+export const isCommittee = (role: Role) => RELATIONS.committee.roles.includes(role);

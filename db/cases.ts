@@ -1,7 +1,6 @@
 import type { Knex } from 'knex';
 import { db } from './index';
-import type { CaseEvent, CaseRow, CaseStatus, Role } from './types';
-import type { Page, Paging } from '@/lib/api/paging';
+import type { CaseEvent, CaseRow, Role } from './types';
 import type { CaseRight } from '@/lib/hunt/access';
 import { whereCaseRight } from './case-scope';
 
@@ -29,45 +28,7 @@ const CASE_COLUMNS = {
   resolvedAt: 'c.resolved_at',
 } as const;
 
-export type CaseListItem = Pick<CaseRow, 'id' | 'reference' | 'title' | 'status' | 'bands' | 'createdAt' | 'updatedAt'> & {
-  assigneeName: string | null;
-};
-
-export type CaseFilter = { status?: CaseStatus; assigneeId?: string; band?: string; q?: string };
-
 type Viewer = { id: string; role: Role };
-
-/**
- * Cases the viewer may see, by the one access rule (lib/hunt/access.ts): coordinators and admins
- * all, hunters those assigned to them, anyone their own reports. The reporter's position is
- * never part of a list row.
- */
-export async function listCasesFor(viewer: Viewer, filter: CaseFilter, paging: Paging): Promise<Page<CaseListItem>> {
-  const base = whereCaseRight(db('cases as c').leftJoin('users as a', 'a.id', 'c.assignee_id'), viewer, 'view');
-  if (filter.status) base.where('c.status', filter.status);
-  if (filter.assigneeId) base.where('c.assignee_id', filter.assigneeId);
-  if (filter.band) base.whereRaw('? = any(c.bands)', [filter.band]);
-  if (filter.q) {
-    const like = `%${filter.q.replace(/[\\%_]/g, (m) => `\\${m}`)}%`;
-    base.where((w) => w.whereILike('c.title', like).orWhereILike('c.reference', like).orWhereILike('c.description', like));
-  }
-  const [{ count }] = await base.clone().count<{ count: string }[]>({ count: 'c.id' });
-  const items = await base
-    .select({
-      id: CASE_COLUMNS.id,
-      reference: CASE_COLUMNS.reference,
-      title: CASE_COLUMNS.title,
-      status: CASE_COLUMNS.status,
-      bands: CASE_COLUMNS.bands,
-      createdAt: CASE_COLUMNS.createdAt,
-      updatedAt: CASE_COLUMNS.updatedAt,
-      assigneeName: 'a.name',
-    })
-    .orderBy('c.updated_at', 'desc')
-    .limit(paging.pageSize)
-    .offset((paging.page - 1) * paging.pageSize);
-  return { items, total: Number(count), ...paging };
-}
 
 export async function getCase(id: string, q: Knex = db): Promise<CaseRow | undefined> {
   return q('cases as c').select(CASE_COLUMNS).where('c.id', id).first();

@@ -6,6 +6,8 @@ source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
 
 export TEST_PORT="${TEST_PORT:-3100}"
+# A second instance of the same app (same database, same secret), as behind a load balancer.
+export TEST_PORT_B="${TEST_PORT_B:-$((TEST_PORT + 1))}" TEST_BASE_URL_B="http://127.0.0.1:${TEST_PORT_B:-$((TEST_PORT + 1))}"
 export PORT="$TEST_PORT"
 export DB_PORT="${TEST_DB_PORT:-54339}" DB_NAME="${TEST_DB_NAME:-quietfix_test}"
 export APP_URL="http://127.0.0.1:$TEST_PORT" NEXTAUTH_URL="http://127.0.0.1:$TEST_PORT" TEST_BASE_URL="http://127.0.0.1:$TEST_PORT"
@@ -17,14 +19,14 @@ export S3_ENDPOINT="http://127.0.0.1:$S3_FAKE_PORT"
 export PG_FSYNC=off
 export QUIETFIX_TEST_PG=pg-test
 
-catcher_pid=""; app_pid=""; worker_pid=""; s3_pid=""
+catcher_pid=""; app_pid=""; app_b_pid=""; worker_pid=""; s3_pid=""
 cleanup() {
   local rc=$?
   trap - INT TERM EXIT
   quiet_if_failed "$rc"
   stop_step
   # shellcheck disable=SC2086
-  stop_groups 10 $app_pid $catcher_pid $worker_pid $s3_pid || true
+  stop_groups 10 $app_pid $app_b_pid $catcher_pid $worker_pid $s3_pid || true
   bash "$ROOT/scripts/pg.sh" down pg-test >/dev/null 2>&1 || true
   rm -f "$DATA/test.pids"
   exit "$rc"
@@ -37,6 +39,7 @@ trap cleanup INT TERM EXIT
 write_pids "$DATA/test.pids"  # from now on npm run stop can find and stop this run
 
 need_free_port "$TEST_PORT" "the test app" "TEST_PORT"
+need_free_port "$TEST_PORT_B" "the second test app instance" "TEST_PORT_B"
 need_free_port "$CATCHER_SMTP_PORT" "the test mail catcher" "TEST_SMTP_PORT"
 need_free_port "$CATCHER_HTTP_PORT" "the test mail catcher API" "TEST_CATCHER_HTTP_PORT"
 need_free_port "$S3_FAKE_PORT" "the test object store" "TEST_S3_PORT"
@@ -60,12 +63,14 @@ write_pids "$DATA/test.pids" "$catcher_pid" "$s3_pid"
 ensure_build
 # The app trusts 127.0.0.9 as a reverse proxy (tests act as that proxy to check the right-most rule).
 app_pid=$(spawn "$DATA/app-test.log" env NODE_ENV=production TRUSTED_PROXY=127.0.0.9 node --import tsx scripts/serve.ts -p "$TEST_PORT" -H 127.0.0.1)
+app_b_pid=$(spawn "$DATA/app-test-b.log" env NODE_ENV=production TRUSTED_PROXY=127.0.0.9 node --import tsx scripts/serve.ts -p "$TEST_PORT_B" -H 127.0.0.1)
 # The outbox worker, polling often so tests see mail quickly; short backoff and lease for outage tests.
 worker_pid=$(spawn "$DATA/outbox-worker-test.log" env OUTBOX_POLL_MS=300 OUTBOX_BACKOFF_BASE_MS=500 OUTBOX_LEASE_MS=5000 node --import tsx scripts/outbox-worker.ts)
-write_pids "$DATA/test.pids" "$app_pid" "$catcher_pid" "$worker_pid" "$s3_pid"
+write_pids "$DATA/test.pids" "$app_pid" "$app_b_pid" "$catcher_pid" "$worker_pid" "$s3_pid"
 wait_http "$S3_ENDPOINT/" 20 || die "the test object store did not start (log: .data/s3-fake-test.log)."
 wait_http "$MAIL_CATCHER_URL/" 20 || die "the test mail catcher did not start (log: .data/mail-catcher-test.log)."
 wait_http "$TEST_BASE_URL/api/health" 60 || { tail -n 20 "$DATA/app-test.log" >&2; die "the test app did not become healthy (log: .data/app-test.log)."; }
+wait_http "$TEST_BASE_URL_B/api/health" 60 || { tail -n 20 "$DATA/app-test-b.log" >&2; die "the second test app instance did not become healthy (log: .data/app-test-b.log)."; }
 
 say "integration tests (Vitest, real PostgreSQL and SMTP)…"
 run_step npx vitest run --project integration || rc=1

@@ -15,6 +15,7 @@ const NAV: { href: string; label: string; roles: Role[] }[] = [
   { href: '/admin/users', label: 'People', roles: ['admin'] },
   { href: '/admin/mail', label: 'Caught mail', roles: ['admin'] },
   { href: '/admin/templates', label: 'Letters', roles: ['admin'] },
+  { href: '/admin/settings', label: 'Club settings', roles: ['admin'] },
 ];
 
 /** The main navigation; the phone menu and the wide-screen row differ only in layout. */

@@ -115,3 +115,13 @@ export async function readJson(req: Request): Promise<unknown> {
 }
 
 export const json = (data: unknown, status = 200) => NextResponse.json(data, { status });
+
+/** A text body (a CSV upload, say) as UTF-8, capped like JSON bodies (413 beyond `max` bytes, 400 when not UTF-8). */
+export async function readText(req: Request, max = MAX_JSON_BYTES): Promise<string> {
+  const bytes = await readCapped(req, max);
+  try {
+    return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    throw badRequest('The body is not UTF-8 text.');
+  }
+}

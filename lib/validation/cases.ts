@@ -111,9 +111,3 @@ export const commentSchema = z.object({
 
 export const mergeSchema = z.object({ intoCaseId: z.uuid(), version });
 
-export const caseFilterSchema = z.object({
-  status: z.enum(CASE_STATUSES).optional(),
-  assigneeId: z.uuid().optional(),
-  band: safeText().max(20).optional(),
-  q: safeText().max(100).optional(),
-});

@@ -10,8 +10,8 @@ test.describe('signing in through the form', () => {
     await page.getByLabel('Password').fill('quietfix-demo');
     await page.getByRole('button', { name: 'Sign in' }).click();
     await expect(page).toHaveURL(/\/cases$/);
-    await expect(page.getByRole('heading', { name: 'All cases' })).toBeVisible();
-    await expect(page.getByRole('list', { name: 'Cases' }).getByRole('listitem').first()).toBeVisible();
+    await expect(page.getByRole('heading', { name: 'The queue' })).toBeVisible();
+    await expect(page.getByRole('table', { name: 'Cases' }).getByTestId('queue-row').first()).toBeVisible();
     // The search finds a demo case by its words.
     await page.getByLabel('Search').fill('Rasping');
     await page.getByRole('button', { name: 'Filter' }).click();
@@ -74,7 +74,7 @@ test.describe('the page after sign-in', () => {
     await page.getByLabel('Password').fill('quietfix-demo');
     await page.getByRole('button', { name: 'Sign in' }).click();
     await expect(page).toHaveURL(/\/cases\?q=Rasping$/);
-    await page.getByRole('list', { name: 'Cases' }).getByRole('link').first().click();
+    await page.getByRole('table', { name: 'Cases' }).getByTestId('queue-row').getByRole('link').first().click();
     await expect(page.getByTestId('case-map').locator('.leaflet-pane').first()).toBeAttached();
     // Leaflet drew the case's lines (React and the map's scripts ran under the CSP).
     await expect(page.getByTestId('case-map').locator('.qf-bearing').first()).toBeAttached();

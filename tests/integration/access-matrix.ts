@@ -32,6 +32,20 @@ const RECIPIENT_DETAILS = { from: ['hunter'] as Who[], keys: ['recipientName', '
 
 export const ACCESS: Row[] = [
   { name: 'list cases', method: 'GET', path: () => '/api/cases', expect: ALL_SIGNED_IN },
+  // The committee's week (issue 13): queue, map, statistics, saved views, bulk assignment.
+  { name: 'queue page by keyset', method: 'GET', path: () => '/api/cases?sort=stateAge&dir=desc&status=open&pageSize=5', expect: ALL_SIGNED_IN },
+  { name: 'map of cases', method: 'GET', path: () => '/api/cases/map?bbox=129.6,-31.2,129.9,-30.9&zoom=12', expect: ALL_SIGNED_IN },
+  { name: 'statistics', method: 'GET', path: () => '/api/stats', expect: COMMITTEE_READ },
+  { name: 'saved views', method: 'GET', path: () => '/api/saved-filters', expect: ALL_SIGNED_IN },
+  { name: 'save a view', method: 'POST', path: () => '/api/saved-filters', body: () => ({}), expect: ALL_SIGNED_IN_BAD_BODY },
+  { name: 'remove a view', method: 'DELETE', path: () => '/api/saved-filters/00000000-0000-4000-8000-000000000000', expect: { anon: 401, admin: 404, coordinator: 404, hunter: 404, member: 404 } },
+  { name: 'bulk assign', method: 'POST', path: () => '/api/cases/bulk-assign', body: () => ({}), expect: COMMITTEE_BAD_BODY },
+  { name: 'export a case', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/export?format=geojson`, expect: HUNT_READ, contentType: /application\/geo\+json/ },
+  { name: 'export the filtered cases', method: 'GET', path: () => '/api/cases/export?format=csv&status=open', expect: COMMITTEE_READ, contentType: /text\/csv/ },
+  { name: 'case dossier', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/dossier.pdf`, expect: COMMITTEE_READ, contentType: /application\/pdf/ },
+  { name: 'club export', method: 'GET', path: () => '/api/club/export', expect: ADMIN_ONLY, contentType: /application\/x-ndjson/ },
+  { name: 'club settings', method: 'GET', path: () => '/api/settings', expect: ADMIN_ONLY },
+  { name: 'change club settings', method: 'PATCH', path: () => '/api/settings', body: () => ({}), expect: ADMIN_ONLY },
   { name: 'list users', method: 'GET', path: () => '/api/users', expect: ADMIN_ONLY },
   { name: 'change a user', method: 'PATCH', path: (ids) => `/api/users/${ids.member}`, body: () => ({ role: 'member' }), expect: ADMIN_ONLY },
   {

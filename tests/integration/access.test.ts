@@ -185,7 +185,8 @@ describe('list endpoints', () => {
   it('answer {items,total,page,pageSize} and cap pageSize', async () => {
     const r = await api('/api/cases?page=1&pageSize=5000', { session: sessions.admin });
     expect(r.status).toBe(200);
-    expect(Object.keys(r.json).sort()).toEqual(['items', 'page', 'pageSize', 'total']);
+    // the list shape, plus the queue's keyset cursor, capped-count flag and sort
+    expect(Object.keys(r.json).sort()).toEqual(['dir', 'items', 'nextCursor', 'page', 'pageSize', 'sort', 'total', 'totalCapped']);
     expect(r.json.pageSize).toBe(100);
     expect(r.json.total).toBeGreaterThanOrEqual(3);
   });

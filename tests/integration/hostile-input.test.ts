@@ -262,6 +262,8 @@ describe('broken addresses', () => {
         fc.constantFrom('/api/cases/', '/api/r/', '/api/templates/', 'notices'),
         fc.uint8Array({ minLength: 1, maxLength: 6 }),
         async (where, bytes) => {
+          // "%2E" and "%2E%2E" are dot segments: URL rules resolve them (a 308 to the parent), not an error.
+          fc.pre(!/^\.{1,2}$/.test(String.fromCharCode(...bytes)));
           const prefix = where === 'notices' ? `/api/cases/${ids.located}/notices/` : where;
           const segment = [...bytes].map((b) => `%${b.toString(16).padStart(2, '0').toUpperCase()}`).join('');
           const r = await api(prefix + segment, { session: chair });

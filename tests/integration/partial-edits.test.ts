@@ -13,7 +13,8 @@ let memberId: string, hunterId: string;
 /** A row without the columns every write bumps. */
 async function stored(table: string, id: string, drop: string[] = []) {
   const row = await db(table).where({ id }).first();
-  for (const k of ['version', 'updated_at', ...drop]) delete row[k];
+  // bookkeeping every write moves (last_activity_at: the queue's sort key, kept by a trigger)
+  for (const k of ['version', 'updated_at', 'last_activity_at', ...drop]) delete row[k];
   return row;
 }
 

@@ -1,18 +1,19 @@
 import { route, json, readJson } from '@/lib/api/handler';
-import { parsePaging } from '@/lib/api/paging';
 import { requireUser } from '@/lib/auth/session';
 import { inTransaction } from '@/db';
-import { listCasesFor } from '@/db/cases';
-import { caseFilterSchema, reportSchema } from '@/lib/validation/cases';
+import { listQueue } from '@/db/queue';
+import { reportSchema } from '@/lib/validation/cases';
+import { parseQueueParams } from '@/lib/validation/queue';
 import { fileReport } from '@/lib/hunt/reports';
 import { toCaseDetail } from '@/lib/hunt/case-detail';
 
-/** Cases the caller may see (see listCasesFor), newest activity first. */
+/**
+ * Cases the caller may see, server-sorted and filtered (lib/validation/queue.ts): keyset pages through
+ * `cursor` (answer's nextCursor), `?page=N` for links and scripts, and a total counted up to 10,000.
+ */
 export const GET = route(async (req) => {
   const me = await requireUser();
-  const sp = req.nextUrl.searchParams;
-  const filter = caseFilterSchema.parse(Object.fromEntries([...sp].filter(([k]) => k in caseFilterSchema.shape)));
-  return json(await listCasesFor(me, filter, parsePaging(sp)));
+  return json(await listQueue(me, parseQueueParams(req.nextUrl.searchParams)));
 });
 
 /** Any signed-in person files a noise report; it becomes an open case. */

@@ -2,11 +2,10 @@ import { route, json, readJson } from '@/lib/api/handler';
 import { requireUser } from '@/lib/auth/session';
 import { inTransaction } from '@/db';
 import { appendEvent, writeCase } from '@/db/cases';
-import { getUserById } from '@/db/users';
+import { assignLockedCase } from '@/lib/hunt/assign';
 import { casePatchSchema } from '@/lib/validation/cases';
 import { caseIdSchema, loadVisibleCase, lockVisibleCase, toCaseDetail } from '@/lib/hunt/case-detail';
 import { assertVersion } from '@/lib/hunt/stale';
-import { badRequest } from '@/lib/errors';
 
 export const GET = route<{ id: string }>(async (_req, ctx) => {
   const { id } = caseIdSchema.parse(await ctx.params);
@@ -23,17 +22,7 @@ export const PATCH = route<{ id: string }>(async (req, ctx) => {
   const row = await inTransaction(async (trx) => {
     const { row: current } = await lockVisibleCase(trx, me, id);
     await assertVersion(trx, current, patch.version);
-    if (patch.assigneeId !== undefined && patch.assigneeId !== current.assigneeId) {
-      const hunter = patch.assigneeId ? await getUserById(patch.assigneeId, trx) : undefined;
-      if (patch.assigneeId && (!hunter?.active || hunter.role === 'member')) throw badRequest('Assign the case to an active hunter, coordinator or admin.');
-      await writeCase(trx, id, { assigneeId: patch.assigneeId });
-      await appendEvent(trx, {
-        caseId: id,
-        actorId: me.id,
-        kind: patch.assigneeId ? 'assigned' : 'unassigned',
-        data: { assigneeId: patch.assigneeId, assigneeName: hunter?.name ?? null, previousAssigneeId: current.assigneeId },
-      });
-    }
+    if (patch.assigneeId !== undefined) await assignLockedCase(trx, me, current, patch.assigneeId);
     const edits = { title: patch.title, description: patch.description };
     if (Object.values(edits).some((v) => v !== undefined)) {
       await writeCase(trx, id, edits);

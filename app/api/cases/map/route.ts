@@ -1,0 +1,19 @@
+import { z } from 'zod';
+import { route, json } from '@/lib/api/handler';
+import { requireUser } from '@/lib/auth/session';
+import { caseMap } from '@/db/case-map';
+import { bboxSchema, parseQueueFilter } from '@/lib/validation/queue';
+
+const mapParams = z.object({
+  bbox: bboxSchema,
+  zoom: z.coerce.number().int().min(0).max(22),
+  heat: z.enum(['0', '1']).default('0'),
+});
+
+/** The map of all cases the caller may see: clusters and single cases in the box, with the queue's filters. */
+export const GET = route(async (req) => {
+  const me = await requireUser();
+  const sp = req.nextUrl.searchParams;
+  const p = mapParams.parse({ bbox: sp.get('bbox') ?? undefined, zoom: sp.get('zoom') ?? undefined, heat: sp.get('heat') ?? undefined });
+  return json(await caseMap(me, parseQueueFilter(sp), p.bbox, p.zoom, p.heat === '1'));
+});

@@ -1,0 +1,77 @@
+import type { Knex } from 'knex';
+import { db } from './index';
+import { applyQueueFilter, LIST_COLUMNS } from './queue';
+import type { Role } from './types';
+import type { QueueFilter } from '@/lib/validation/queue';
+
+const BATCH = 1000;
+
+export type ExportCaseRow = {
+  id: string;
+  reference: string;
+  title: string;
+  status: string;
+  bands: string[];
+  createdAt: Date;
+  lastActivityAt: Date;
+  assigneeName: string | null;
+  lat: number | null;
+  lon: number | null;
+  fixSizeM: number | null;
+  noticeCount: number;
+  outcome: string | null;
+  levelBeforeDbm: number | null;
+  levelAfterDbm: number | null;
+};
+
+/**
+ * The filtered cases, in reference order, a thousand at a time (keyset on the unique reference):
+ * an export of 100,000 cases never sits in memory. Positions are the map position (the fix, else
+ * the reported position) and only for the committee, who may see both.
+ */
+export async function* exportCaseBatches(viewer: { id: string; role: Role }, f: QueueFilter, q: Knex = db): AsyncGenerator<ExportCaseRow[]> {
+  let after: string | null = null;
+  for (;;) {
+    const b = applyQueueFilter(q('cases as c'), viewer, f)
+      .leftJoin('users as u', 'u.id', 'c.assignee_id')
+      .select({ ...LIST_COLUMNS, outcome: 'c.outcome', levelBeforeDbm: 'c.level_before_dbm', levelAfterDbm: 'c.level_after_dbm' })
+      .select(q.raw('ST_Y(c.map_point) as lat'), q.raw('ST_X(c.map_point) as lon'))
+      .orderBy('c.reference')
+      .limit(BATCH);
+    if (after !== null) b.where('c.reference', '>', after);
+    const rows = (await b) as ExportCaseRow[];
+    if (rows.length === 0) return;
+    yield rows;
+    if (rows.length < BATCH) return;
+    after = rows[rows.length - 1].reference;
+  }
+}
+
+/** What the club export holds, table by table (no password hashes, no token secrets). */
+export const CLUB_EXPORT_TABLES: Record<string, string[]> = {
+  club_settings: ['id', 'club_name', 'contact_email', 'locate_threshold_m', 'reminder_days', 'max_position_accuracy_m', 'noise_environment', 'upload_max_mb', 'updated_at'],
+  users: ['id', 'email', 'name', 'call_sign', 'role', 'active', 'created_at'],
+  cases: ['id', 'reference', 'title', 'description', 'status', 'reporter_id', 'assignee_id', 'reported_lat', 'reported_lon', 'bands', 'report', 'consent_share_name', 'outcome', 'level_before_dbm', 'level_after_dbm', 'created_at', 'updated_at', 'resolved_at', 'merged_into'],
+  case_events: ['id', 'case_id', 'actor_id', 'kind', 'data', 'visibility', 'created_at'],
+  bearings: ['id', 'case_id', 'author_id', 'lat', 'lon', 'position_source', 'position_accuracy_m', 'azimuth_entered_deg', 'reference', 'declination_deg', 'azimuth_true_deg', 'sigma_deg', 'null_width_deg', 'frequency_khz', 'one_way', 'note', 'excluded', 'taken_at'],
+  fix_snapshots: ['id', 'case_id', 'cause', 'line_count', 'ok', 'lat', 'lon', 'semi_major_m', 'semi_minor_m', 'major_axis_azimuth_deg', 'created_at'],
+  notices: ['id', 'case_id', 'template_key', 'status', 'recipient_name', 'postal_address', 'email', 'sent_at', 'delivered_on', 'created_at'],
+  notice_answers: ['id', 'notice_id', 'kind', 'message', 'contact', 'created_at'],
+  notice_templates: ['key', 'title', 'subject', 'body', 'version', 'updated_at'],
+};
+
+/** One table of the club export, in key order, a thousand rows at a time. */
+export async function* clubTableBatches(table: keyof typeof CLUB_EXPORT_TABLES & string, q: Knex = db): AsyncGenerator<Record<string, unknown>[]> {
+  const columns = CLUB_EXPORT_TABLES[table];
+  const key = columns[0];
+  let after: unknown = null;
+  for (;;) {
+    const b = q(table).select(columns).orderBy(key).limit(BATCH);
+    if (after !== null) b.where(key, '>', after as string);
+    const rows = await b;
+    if (rows.length === 0) return;
+    yield rows;
+    if (rows.length < BATCH) return;
+    after = rows[rows.length - 1][key];
+  }
+}

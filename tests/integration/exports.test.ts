@@ -1,0 +1,213 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import { DOMParser } from '@xmldom/xmldom';
+import { kml } from '@tmcw/togeojson';
+import { parse } from 'csv-parse/sync';
+import { booleanClockwise } from '@turf/turf';
+import { Geodesic } from 'geographiclib-geodesic';
+import { PDFDocument } from 'pdf-lib';
+import { db } from '@/db';
+import { api, BASE_URL, signIn, type Session } from '../support/http';
+import { noiseReport } from '../support/fixtures';
+
+/**
+ * Exports checked against the standards and reference libraries, not against our own code:
+ * GeoJSON against RFC 7946 (positions lon,lat §3.1.1; closed rings of four or more positions
+ * §3.1.6; exterior rings counter-clockwise, the right-hand rule, §3.1.6, checked with Turf's
+ * booleanClockwise; no "crs" member, §4), bearing lines against GeographicLib's geodesic
+ * (Karney 2013), KML 2.2 read back by @tmcw/togeojson with @xmldom/xmldom, CSV (RFC 4180) read by
+ * csv-parse and fed back through the import's dry run, the dossier opened by pdf-lib.
+ */
+let coordinator: Session;
+let hunter: Session;
+let admin: Session;
+let locatedId: string;
+let openId: string;
+let locatedRef: string;
+
+const raw = async (path: string, session: Session, init: RequestInit = {}) =>
+  fetch(`${BASE_URL}${path}`, { ...init, headers: { cookie: session.cookie, origin: new URL(BASE_URL).origin, ...(init.headers ?? {}) } });
+
+beforeAll(async () => {
+  [coordinator, hunter, admin] = await Promise.all([signIn('coordinator@example.test'), signIn('hunter@example.test'), signIn('chair@example.test')]);
+  const located = (await api('/api/cases?q=Warbling', { session: coordinator })).json.items[0];
+  locatedId = located.id;
+  locatedRef = located.reference;
+  // A case of this test's own, assigned to the demo hunter: imports here leave the demo's cases alone.
+  const filed = await api('/api/cases', { session: coordinator, body: noiseReport({ title: `Import target ${Date.now()}` }) });
+  openId = filed.json.case.id;
+  const hunterId = (await db('users').where({ email: 'hunter@example.test' }).first()).id;
+  const a = await api(`/api/cases/${openId}`, { method: 'PATCH', session: coordinator, body: { version: filed.json.case.version, assigneeId: hunterId } });
+  expect(a.status, a.text).toBe(200);
+});
+
+function checkPosition(p: unknown) {
+  expect(Array.isArray(p) && p.length >= 2).toBe(true);
+  const [lon, lat] = p as number[];
+  expect(lon).toBeGreaterThanOrEqual(-180);
+  expect(lon).toBeLessThanOrEqual(180);
+  expect(lat).toBeGreaterThanOrEqual(-90);
+  expect(lat).toBeLessThanOrEqual(90);
+}
+
+describe('one case as GeoJSON (RFC 7946)', () => {
+  it('lines are geodesics through the observer at the true azimuth; the region is a closed counter-clockwise ring', async () => {
+    const res = await raw(`/api/cases/${locatedId}/export?format=geojson`, coordinator);
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toBe('application/geo+json');
+    const fc = await res.json();
+    expect(fc.type).toBe('FeatureCollection');
+    expect(fc).not.toHaveProperty('crs');
+    const bearings = (await api(`/api/cases/${locatedId}/bearings`, { session: coordinator })).json.items;
+    const lines = fc.features.filter((f: any) => f.properties.kind === 'bearing');
+    expect(lines).toHaveLength(bearings.length);
+    for (const f of lines) {
+      expect(f.geometry.type).toBe('LineString');
+      expect(f.geometry.coordinates.length).toBeGreaterThanOrEqual(2);
+      f.geometry.coordinates.forEach(checkPosition);
+      const [olon, olat] = f.properties.observer;
+      const [elon, elat] = f.geometry.coordinates.at(-1);
+      // GeographicLib: the azimuth from the observer to the line's far end is the bearing's true azimuth.
+      const inv = Geodesic.WGS84.Inverse(olat, olon, elat, elon) as { azi1: number };
+      const diff = ((inv.azi1 - f.properties.azimuthTrueDeg + 540) % 360) - 180;
+      expect(Math.abs(diff)).toBeLessThan(0.01);
+    }
+    const region = fc.features.find((f: any) => f.properties.kind === 'region');
+    expect(region.geometry.type).toBe('Polygon');
+    const ring = region.geometry.coordinates[0];
+    expect(ring.length).toBeGreaterThanOrEqual(4);
+    expect(ring[0]).toEqual(ring.at(-1));
+    ring.forEach(checkPosition);
+    expect(booleanClockwise(ring)).toBe(false);
+    const fix = fc.features.find((f: any) => f.properties.kind === 'fix');
+    expect(fix.geometry.type).toBe('Point');
+    checkPosition(fix.geometry.coordinates);
+  });
+
+  it('KML 2.2 reads back with the same features', async () => {
+    const gj = await (await raw(`/api/cases/${locatedId}/export?format=geojson`, coordinator)).json();
+    const res = await raw(`/api/cases/${locatedId}/export?format=kml`, coordinator);
+    expect(res.headers.get('content-type')).toMatch(/kml/);
+    const text = await res.text();
+    const doc = new DOMParser().parseFromString(text, 'text/xml');
+    expect(doc.documentElement!.getAttribute('xmlns')).toBe('http://www.opengis.net/kml/2.2');
+    const back = kml(doc as unknown as Document);
+    expect(back.features.map((f) => f.geometry?.type)).toEqual(gj.features.map((f: any) => f.geometry.type));
+    expect(back.features.map((f) => f.properties?.name)).toEqual(gj.features.map((f: any) => f.properties.name));
+  });
+
+  it('bearings CSV round trip: exported rows pass the import dry run and give the same true azimuths', async () => {
+    const res = await raw(`/api/cases/${locatedId}/export?format=csv`, coordinator);
+    expect(res.headers.get('content-type')).toMatch(/text\/csv/);
+    const text = await res.text();
+    const rows = parse(text, { columns: true }) as Record<string, string>[];
+    expect(rows.length).toBeGreaterThan(0);
+    const dry = await api(`/api/cases/${openId}/bearings/import?dryRun=1`, { session: coordinator, body: text, headers: { 'content-type': 'text/csv' } });
+    expect(dry.status, dry.text).toBe(200);
+    expect(dry.json.problems).toEqual([]);
+    expect(dry.json.valid).toBe(rows.length);
+    dry.json.rows.forEach((r: any, i: number) => expect(r.azimuthTrueDeg).toBeCloseTo(Number(rows[i].azimuth_true_deg), 3));
+  });
+
+  it('a hunter not assigned, or a member, gets no export', async () => {
+    const member = await signIn('member@example.test');
+    expect((await raw(`/api/cases/${locatedId}/export?format=geojson`, member)).status).toBe(403);
+    expect((await raw(`/api/cases/${locatedId}/export?format=zip`, coordinator)).status).toBe(400);
+  });
+});
+
+describe('bearings import', () => {
+  const count = async (id: string) => Number((await db('bearings').where({ case_id: id }).count<{ n: string }[]>({ n: '*' }))[0].n);
+  const BAD = ['lat,lon,azimuth_deg,reference,sigma_deg', '-31.05,129.75,45,true,3', '95,129.75,45,true,3', '-31.05,129.75,abc,true,3', '-31.05,129.75,45,grid,3'].join('\n');
+
+  it('the dry run names each problem by line and column and writes nothing', async () => {
+    const before = await count(openId);
+    const r = await api(`/api/cases/${openId}/bearings/import?dryRun=1`, { session: hunter, body: BAD, headers: { 'content-type': 'text/csv' } });
+    expect(r.status, r.text).toBe(200);
+    expect(r.json.valid).toBe(1);
+    expect(r.json.problems.map((p: any) => [p.line, p.field])).toEqual([
+      [3, 'lat'],
+      [4, 'azimuth_deg'],
+      [5, 'reference'],
+    ]);
+    expect(await count(openId)).toBe(before);
+  });
+
+  it('a real import with problems writes nothing (400); a clean one writes every row (201)', async () => {
+    const before = await count(openId);
+    const bad = await api(`/api/cases/${openId}/bearings/import`, { session: hunter, body: BAD, headers: { 'content-type': 'text/csv' } });
+    expect(bad.status).toBe(400);
+    expect(bad.json.problems).toHaveLength(3);
+    expect(await count(openId)).toBe(before);
+    const good = ['lat,lon,azimuth_deg,reference,sigma_deg,note', '-31.0490,129.7470,60,true,3,from the lane', '-31.0510,129.7520,330,true,3,from the park gate'].join('\n');
+    const ok = await api(`/api/cases/${openId}/bearings/import`, { session: hunter, body: good, headers: { 'content-type': 'text/csv' } });
+    expect(ok.status, ok.text).toBe(201);
+    expect(ok.json.imported).toBe(2);
+    expect(await count(openId)).toBe(before + 2);
+  });
+
+  it('someone without the hunt right may not import, not even a dry run', async () => {
+    const member = await signIn('member@example.test');
+    const r = await api(`/api/cases/${openId}/bearings/import?dryRun=1`, { session: member, body: BAD, headers: { 'content-type': 'text/csv' } });
+    expect(r.status).toBe(403); // members never hunt
+  });
+
+  it('a CSV without the needed columns, or not CSV at all, is a plain 400', async () => {
+    for (const body of ['lat,lon\n1,2', 'lat,lon,azimuth_deg,reference\n"unclosed,1,2,true']) {
+      const r = await api(`/api/cases/${openId}/bearings/import?dryRun=1`, { session: hunter, body, headers: { 'content-type': 'text/csv' } });
+      expect(r.status).toBe(400);
+      expect(typeof r.json.error).toBe('string');
+    }
+  });
+});
+
+describe('set and club exports, streamed', () => {
+  it('the filtered set as GeoJSON, KML and CSV', async () => {
+    const [{ n }] = (await db.raw("SELECT count(*)::int AS n FROM cases WHERE map_point IS NOT NULL AND (reference || ' ' || title || ' ' || description) ILIKE '%Warbling%'")).rows;
+    const gj = await (await raw('/api/cases/export?format=geojson&q=Warbling', coordinator)).json();
+    expect(gj.features).toHaveLength(n);
+    gj.features.forEach((f: any) => expect(f.geometry.type).toBe('Point'));
+    const k = kml(new DOMParser().parseFromString(await (await raw('/api/cases/export?format=kml&q=Warbling', coordinator)).text(), 'text/xml') as unknown as Document);
+    expect(k.features).toHaveLength(n);
+    const csv = parse(await (await raw('/api/cases/export?format=csv&q=Warbling', coordinator)).text(), { columns: true }) as Record<string, string>[];
+    expect(csv.map((r) => r.reference)).toContain(locatedRef);
+  });
+
+  it('the club export is JSON lines without password hashes', async () => {
+    const res = await raw('/api/club/export', admin);
+    expect(res.status).toBe(200);
+    const text = await res.text();
+    expect(text).not.toMatch(/password_hash|\$2[aby]\$/);
+    const lines = text.trim().split('\n').map((l) => JSON.parse(l));
+    expect(lines[0].format).toBe('quietfix-club-export');
+    const [{ n }] = (await db.raw('SELECT count(*)::int AS n FROM cases')).rows;
+    expect(lines.filter((l) => l.table === 'cases')).toHaveLength(n);
+    expect((await raw('/api/club/export', coordinator)).status).toBe(403);
+  });
+});
+
+describe('case dossier', () => {
+  it('is a PDF that opens and names the case; committee only', async () => {
+    const res = await raw(`/api/cases/${locatedId}/dossier.pdf`, coordinator);
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toBe('application/pdf');
+    const pdf = await PDFDocument.load(new Uint8Array(await res.arrayBuffer()));
+    expect(pdf.getPageCount()).toBeGreaterThanOrEqual(1);
+    expect(pdf.getTitle()).toBe(`Case dossier ${locatedRef}`);
+    expect(pdf.getSubject()).toContain(locatedRef);
+    expect((await raw(`/api/cases/${locatedId}/dossier.pdf`, hunter)).status).toBe(403);
+  });
+});
+
+describe('club settings', () => {
+  it('an admin changes settings; each change lands on the settings timeline; bad values are 400', async () => {
+    const before = (await api('/api/settings', { session: admin })).json.settings;
+    const r = await api('/api/settings', { method: 'PATCH', session: admin, body: { reminderDays: before.reminderDays + 1, noiseEnvironment: 'rural' } });
+    expect(r.status, r.text).toBe(200);
+    expect(r.json.settings.reminderDays).toBe(before.reminderDays + 1);
+    const timeline = (await api('/api/settings', { session: admin })).json.timeline;
+    expect(timeline[0].changes.reminderDays).toEqual({ from: before.reminderDays, to: before.reminderDays + 1 });
+    expect((await api('/api/settings', { method: 'PATCH', session: admin, body: { locateThresholdM: -3 } })).status).toBe(400);
+    expect((await api('/api/settings', { method: 'PATCH', session: coordinator, body: { reminderDays: 3 } })).status).toBe(403);
+    await api('/api/settings', { method: 'PATCH', session: admin, body: { reminderDays: before.reminderDays, noiseEnvironment: before.noiseEnvironment } });
+  });
+});
