@@ -2,6 +2,8 @@ import { expect, test } from '@playwright/test';
 import { signInPage } from '../support/sign-in-page';
 import { harmonicFamily, mix, wavBytes, whiteNoise } from '../support/signals';
 
+const DEMO_OPEN_TITLE = 'Rasping hash on 80 m and 40 m in the evenings'; // db/seeds/demo.ts
+
 /**
  * Evidence on a 360-px phone: the assigned hunter attaches a synthetic WAV (a 50 Hz harmonic
  * family, made here) through the file input; the upload goes straight to the object store with
@@ -15,7 +17,10 @@ test('a hunter uploads a WAV with a moving progress bar and later sees its signa
   const errors: string[] = [];
   page.on('console', (m) => m.type() === 'error' && errors.push(m.text()));
   await signInPage(page, 'hunter@example.test');
-  const caseId = (await (await page.request.get('/api/cases?q=Rasping')).json()).items[0].id as string;
+  // The demo's open case by its own title (a text search can also match cases other tests filed).
+  const caseId = ((await (await page.request.get('/api/cases?q=Rasping')).json()).items as { id: string; title: string }[]).find(
+    (c) => c.title === DEMO_OPEN_TITLE,
+  )!.id;
   await page.goto(`/cases/${caseId}`);
   const card = page.getByTestId('evidence-card');
   await expect(card.getByRole('heading', { name: 'Recordings and photos' })).toBeVisible();
