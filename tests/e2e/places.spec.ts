@@ -37,7 +37,8 @@ test('a hunter sees house numbers inside the region, confirms the premises, and 
   await first.getByRole('button', { name: 'Show on map' }).click();
   const map = hunter.getByTestId('case-map');
   const label = map.locator('.qf-house-number').filter({ hasText: new RegExp(`^${houseNumber}$`) });
-  await expect(label.first()).toBeVisible();
+  // The map flies to street zoom, then fetches the places of the new view and draws their numbers.
+  await expect(label.first()).toBeVisible({ timeout: 20_000 });
   expect(await map.locator('.qf-house-number').count()).toBeGreaterThan(3);
   await expect(map.locator('path.qf-candidate').first()).toBeVisible();
   await expect(map.locator('.qf-ellipse')).toHaveCount(1);
