@@ -51,9 +51,16 @@ bash scripts/pg.sh ensure-db pg-test "$DB_PORT" "$DB_NAME" fresh
 say "migrating $DB_NAME…"; migrate
 node --import tsx scripts/seed.ts || die "seeding the test database failed."
 
+# TEST_ONLY="places fix" runs only the test files whose paths contain one of the words (every
+# runner, none failing for want of a match); unset, everything runs, as in CI.
+only=()
+[ -n "${TEST_ONLY:-}" ] && read -r -a only <<<"$TEST_ONLY"
+vitest_only=(); playwright_only=()
+[ "${#only[@]}" -gt 0 ] && vitest_only=(--passWithNoTests "${only[@]}") && playwright_only=(--pass-with-no-tests "${only[@]}")
+
 rc=0
 say "unit tests (Vitest)…"
-run_step npx vitest run --project unit || rc=1
+run_step npx vitest run --project unit "${vitest_only[@]}" || rc=1
 
 rm -f "$CATCHER_STORE"
 catcher_pid=$(spawn "$DATA/mail-catcher-test.log" node --import tsx scripts/mail-catcher.ts)
@@ -73,11 +80,11 @@ wait_http "$TEST_BASE_URL/api/health" 60 || { tail -n 20 "$DATA/app-test.log" >&
 wait_http "$TEST_BASE_URL_B/api/health" 60 || { tail -n 20 "$DATA/app-test-b.log" >&2; die "the second test app instance did not become healthy (log: .data/app-test-b.log)."; }
 
 say "integration tests (Vitest, real PostgreSQL and SMTP)…"
-run_step npx vitest run --project integration || rc=1
+run_step npx vitest run --project integration "${vitest_only[@]}" || rc=1
 
 ensure_chromium
 say "end-to-end tests (Playwright, Debian's chromium)…"
-run_step npx playwright test || rc=1
+run_step npx playwright test "${playwright_only[@]}" || rc=1
 
 [ "$rc" = 0 ] && say "all suites passed." || say "some suites failed (see above)."
 exit "$rc"

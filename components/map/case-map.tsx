@@ -94,7 +94,7 @@ export default function CaseMap({ bearings, fix, reportedPosition, selectedPosit
           <SpotMarkers spots={spots} onSelect={onSpotSelect} />
           {levelTrail && <LevelTrailLayer {...levelTrail} />}
           <FlyTo focus={focus} />
-          <FitBoundsOnce points={fitPoints} complete={fix !== undefined} refitKey={bearings.filter((b) => !b.excluded).length} />
+          <FitBoundsOnce points={fitPoints} complete={fix !== undefined} refitKey={bearings.filter((b) => !b.excluded).length} holdKey={focus?.key} />
         </MapContainer>
       </div>
       <CaseMapLegend keys={legend} />

@@ -1,7 +1,7 @@
 'use client';
 
 import { useEffect, useRef } from 'react';
-import { useMap } from 'react-leaflet';
+import { useMap, useMapEvents } from 'react-leaflet';
 import { latLngBounds } from 'leaflet';
 
 /** Closest zoom used when fitting (about street level) and for a single point. */
@@ -11,13 +11,34 @@ const MAX_FIT_ZOOM = 17;
  * Fits the view to `points` ([lat, lon] degrees): when they first appear, once more when
  * `complete` turns true (all data loaded) if the first fit came from partial data, and again
  * whenever `refitKey` changes (a line was added or removed). Plain refreshes never move the map
- * the hunter may have panned.
+ * the hunter may have panned. A view the hunter chose (a drag, or a new `holdKey`: "show this
+ * house") also cancels the pending fit for complete data, so late data never yanks the map away.
  */
-export function FitBoundsOnce({ points, complete, refitKey }: { points: [number, number][]; complete: boolean; refitKey?: string | number }) {
+export function FitBoundsOnce({
+  points,
+  complete,
+  refitKey,
+  holdKey,
+}: {
+  points: [number, number][];
+  complete: boolean;
+  refitKey?: string | number;
+  holdKey?: string | null;
+}) {
   const map = useMap();
   const state = useRef<'none' | 'partial' | 'full'>('none');
   const lastKey = useRef(refitKey);
+  const lastHold = useRef(holdKey);
+  useMapEvents({
+    dragstart: () => {
+      if (state.current === 'partial') state.current = 'full';
+    },
+  });
   useEffect(() => {
+    if (holdKey !== lastHold.current) {
+      lastHold.current = holdKey;
+      if (holdKey) state.current = 'full';
+    }
     if (refitKey !== lastKey.current) {
       lastKey.current = refitKey;
       if (state.current === 'full') state.current = 'partial';
@@ -27,6 +48,6 @@ export function FitBoundsOnce({ points, complete, refitKey }: { points: [number,
     if (points.length === 1 || bounds.getNorthEast().equals(bounds.getSouthWest())) map.setView(bounds.getCenter(), 16);
     else map.fitBounds(bounds, { padding: [28, 28], maxZoom: MAX_FIT_ZOOM });
     state.current = complete ? 'full' : 'partial';
-  }, [map, points, complete, refitKey]);
+  }, [map, points, complete, refitKey, holdKey]);
   return null;
 }
