@@ -39,7 +39,7 @@ function withHeaders<R extends NextResponse>(res: R, own: Record<string, string>
 }
 
 /**
- * Runs before every page and route handler:
+ * Runs before every page (and the API paths named in `config` below):
  * - a path whose percent-encoding does not decode is a 400 JSON (API) or the not-found page,
  *   never Next's plain-text 500;
  * - a state-changing request to a page (a server action) passes the same Origin rule as route()
@@ -84,4 +84,9 @@ export async function proxy(req: NextRequest) {
   return withHeaders(rewriteTo ? NextResponse.rewrite(rewriteTo, { request: { headers } }) : NextResponse.next({ request: { headers } }), own);
 }
 
-export const config = { matcher: ['/((?!_next/static|_next/image).*)'] };
+/**
+ * Every path but Next's static files and the API: route() gives each API answer its headers and
+ * checks its origin, so the proxy's per-request cost is spared there. It still sees next-auth's
+ * endpoints (callback checks) and any API path with a percent sign (broken encodings -> 400 JSON).
+ */
+export const config = { matcher: ['/((?!_next/static|_next/image|api/(?!auth(?:/|$))[^%]*$).*)'] };

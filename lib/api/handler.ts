@@ -1,7 +1,8 @@
 import { NextResponse, type NextRequest } from 'next/server';
-import { allowedOrigins } from '@/lib/env';
+import { allowedOrigins, appIsHttps } from '@/lib/env';
 import { badRequest, payloadTooLarge, toErrorBody } from '@/lib/errors';
 import { assertBodyKind, assertSameOrigin, type BodyKind } from './request-guard';
+import { apiSecurityHeaders } from './security-headers';
 
 export type RouteContext<P = Record<string, string>> = { params: Promise<P> };
 type Handler<P> = (req: NextRequest, ctx: RouteContext<P>) => Promise<Response>;
@@ -42,17 +43,21 @@ export function route<P = Record<string, string>>(a: RouteOptions | Handler<P>, 
       if (status === 429 && typeof body.retryAfterS === 'number') headers['Retry-After'] = String(body.retryAfterS);
       res = NextResponse.json(body, { status, headers });
     }
-    if (res.headers.has('cache-control')) return res;
-    try {
-      res.headers.set('cache-control', cache);
-      return res;
-    } catch {
-      // an immutable Response (e.g. Response.redirect): copy it with the header added
-      const headers = new Headers(res.headers);
-      headers.set('cache-control', cache);
-      return new Response(res.body, { status: res.status, statusText: res.statusText, headers });
-    }
+    return withDefaults(res, { 'cache-control': cache, ...apiSecurityHeaders(req.nextUrl.pathname, appIsHttps) });
   };
+}
+
+/** Sets each header the answer does not carry yet; an immutable Response (e.g. Response.redirect) is copied. */
+function withDefaults(res: Response, defaults: Record<string, string>): Response {
+  const missing = Object.entries(defaults).filter(([k]) => !res.headers.has(k));
+  try {
+    for (const [k, v] of missing) res.headers.set(k, v);
+    return res;
+  } catch {
+    const headers = new Headers(res.headers);
+    for (const [k, v] of missing) headers.set(k, v);
+    return new Response(res.body, { status: res.status, statusText: res.statusText, headers });
+  }
 }
 
 /** Largest JSON body a route reads, in bytes (UTF-8); more is a 413. */

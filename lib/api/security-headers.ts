@@ -1,5 +1,6 @@
 /**
- * The security headers of every page and API answer (set by proxy.ts). Pure: unit-testable.
+ * The security headers of every page and API answer (pages: set by proxy.ts; API answers: by
+ * route(), and by proxy.ts for the API paths it still sees). Pure: unit-testable.
  * Pages get a nonce-based Content-Security-Policy (Next puts the nonce on its own scripts when
  * the request carries the policy); API answers a policy that loads nothing.
  */
@@ -55,16 +56,26 @@ export const API_POLICY = "default-src 'none'; object-src 'self'; frame-ancestor
 /** Pages and answers whose URL carries a secret token: no Referer leaves them. */
 const TOKEN_PATHS = [/^\/r\//, /^\/api\/r\//, /^\/set-password(\/|$)/];
 
-/** Response headers for a path (CSP included). */
-export function securityHeaders(pathname: string, o: HeaderOptions): Record<string, string> {
-  const api = pathname === '/api' || pathname.startsWith('/api/');
+const isApi = (pathname: string) => pathname === '/api' || pathname.startsWith('/api/');
+
+function headersWith(policy: string, pathname: string, https: boolean): Record<string, string> {
   return {
-    'Content-Security-Policy': api ? API_POLICY : pagePolicy(o),
+    'Content-Security-Policy': policy,
     'X-Content-Type-Options': 'nosniff',
     'X-Frame-Options': 'DENY',
     'Referrer-Policy': TOKEN_PATHS.some((re) => re.test(pathname)) ? 'no-referrer' : 'strict-origin-when-cross-origin',
-    ...(o.https ? { 'Strict-Transport-Security': 'max-age=31536000' } : {}),
+    ...(https ? { 'Strict-Transport-Security': 'max-age=31536000' } : {}),
   };
+}
+
+/** Response headers for a path (CSP included). */
+export function securityHeaders(pathname: string, o: HeaderOptions): Record<string, string> {
+  return headersWith(isApi(pathname) ? API_POLICY : pagePolicy(o), pathname, o.https);
+}
+
+/** The same headers for an API answer, which needs no nonce (route() sets them on every answer). */
+export function apiSecurityHeaders(pathname: string, https: boolean): Record<string, string> {
+  return headersWith(API_POLICY, pathname, https);
 }
 
 /** True when every segment of a raw (still percent-encoded) path decodes to valid UTF-8. */

@@ -61,6 +61,8 @@ describe('API answers', () => {
     ['/api/auth/session', true, 200, 'strict-origin-when-cross-origin'],
     [`/api/r/${'Z'.repeat(43)}`, false, 404, 'no-referrer'],
     ['/api/cases/%FF', true, 400, 'strict-origin-when-cross-origin'],
+    ['/api/no-such-resource', true, 404, 'strict-origin-when-cross-origin'],
+    ['/api/cases/no/such/depth', false, 404, 'strict-origin-when-cross-origin'],
   ];
   it.each(ANSWERS)('%s (signed in: %s) -> %i: no-store, nosniff, nothing loads, never framed', async (path, signedIn, status, referrer) => {
     const res = await get(path, signedIn ? coordinator : undefined);
