@@ -51,11 +51,11 @@ const peakIcon = L.divIcon({
   iconAnchor: [13, 13],
 });
 
-/** A dark diamond with a white rim: unlike the round smoothed peak at a glance, and in sunlight. */
+/** A dark square with a white rim and an amber ring: unlike the round smoothed peak (and the reporter's diamond) at a glance, and in sunlight. */
 const strongestIcon = (source: TrailSource) =>
   L.divIcon({
     className: 'qf-trail-strongest',
-    html: `<span data-testid="strongest-marker" data-source="${source}" style="display:block;width:20px;height:20px;margin:3px;transform:rotate(45deg);background:#0f1d2b;border:3px solid #fff;box-shadow:0 0 0 2px #e0a526"></span>`,
+    html: `<span data-testid="strongest-marker" data-source="${source}" style="display:block;width:20px;height:20px;margin:3px;background:#0f1d2b;border:3px solid #fff;box-shadow:0 0 0 2px #e0a526"></span>`,
     iconSize: [26, 26],
     iconAnchor: [13, 13],
   });
@@ -65,7 +65,7 @@ export const strongestLevelWords = (s: StrongestReading) => (s.level.unit === 'd
 
 /**
  * One trail on the map: a dot per reading, graded by its smoothed level on the shared `range`;
- * the smoothed peak (round, red) and the strongest single reading (diamond, with a popup of its
+ * the smoothed peak (round, red) and the strongest single reading (square, with a popup of its
  * level, time and position). `named` adds the source to the marks when several trails are shown.
  */
 export function LevelTrailLayer({ source, points, peak, strongest, range, named }: LevelTrailProps & { range: [number, number]; named: boolean }) {
@@ -140,7 +140,7 @@ export function LevelTrailLegend({ trails, hidden, onToggle }: { trails: LevelTr
           <span aria-hidden="true" className="inline-block h-3 w-3 rounded-full bg-[#c2331f] ring-2 ring-ink" /> level peak (smoothed over neighbours)
         </span>
         <span className="flex items-center gap-1" data-legend="strongest">
-          <span aria-hidden="true" className="mx-0.5 inline-block h-2.5 w-2.5 rotate-45 bg-ink ring-2 ring-[#e0a526]" /> strongest single reading (tap it for level, time, place)
+          <span aria-hidden="true" className="mx-0.5 inline-block h-3 w-3 border-2 border-white bg-ink ring-2 ring-[#e0a526]" /> strongest single reading (tap it for level, time, place)
         </span>
       </div>
       {withPoints.length > 1 && (

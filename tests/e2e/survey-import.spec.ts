@@ -59,6 +59,7 @@ test('a hunter checks and imports a GPX + CSV survey and sees its strongest read
   await expect(preview.getByTestId('survey-strongest')).toContainText('-60 dBm');
   await expect(preview.getByTestId('survey-strongest')).toContainText('31.06000° S, 129.76080° E');
   expect(await readingsOn(hunterApi, caseId)).toBe(0);
+  await card.screenshot({ path: info.outputPath('survey-preview.png') });
   const box = await card.boundingBox();
   expect(box!.width).toBeLessThanOrEqual(360);
 
@@ -96,6 +97,7 @@ test('a hunter checks and imports a GPX + CSV survey and sees its strongest read
   await expect(map.getByTestId('strongest-marker')).toHaveCount(1);
   await expect(map.getByTestId('strongest-marker')).toHaveAttribute('data-source', 'gpx');
   await expect(sources.getByRole('checkbox', { name: /Imported survey \(8 readings\)/ })).toBeChecked();
+  await map.screenshot({ path: info.outputPath('two-trails.png') });
   expect(errors.filter((e) => /Content Security Policy|Refused/.test(e))).toEqual([]);
   await context.close();
 });
