@@ -8,9 +8,9 @@ import type { LevelTrailProps } from '@/components/map/level-trail-layer';
  * The walk's smoothed level peak, offered as the place to confirm the premises from, with the
  * cautions on screen.
  */
-export function TrailPeakCard({ trail, onUse }: { trail: LevelTrailProps; onUse: (p: { lat: number; lon: number }) => void }) {
+export function TrailPeakCard({ trail, onUse }: { trail: LevelTrailProps | null; onUse: (p: { lat: number; lon: number }) => void }) {
+  if (!trail?.peak) return null;
   const { peak, points } = trail;
-  if (!peak) return null;
   return (
     <section aria-label="Level peak" className="card space-y-2" data-testid="trail-peak">
       <h2 className="text-lg font-bold">Level peak of the walk</h2>

@@ -1,7 +1,7 @@
 'use client';
 
 import 'leaflet/dist/leaflet.css';
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { MapContainer } from 'react-leaflet';
 import { ellipsePolygon, type NextSpot } from '@/lib/df';
 import type { BearingView, FixView } from '@/lib/hunt/views';
@@ -14,7 +14,7 @@ import type { PlacesHighlight } from './places-layer';
 import { MapTap, type LatLon } from './map-tap';
 import { PLAIN_BACKGROUND } from './map-styles';
 import { PickedPositionMarker } from './picked-position-marker';
-import { LevelTrailLayer, LevelTrailLegend, type LevelTrailProps } from './level-trail-layer';
+import { LevelTrailLayer, LevelTrailLegend, trailRange, type LevelTrailProps, type TrailSource } from './level-trail-layer';
 
 export type CaseMapProps = {
   bearings: BearingView[];
@@ -29,8 +29,8 @@ export type CaseMapProps = {
   places?: PlacesHighlight;
   /** Move the map here (a new key moves it again). */
   focus?: MapFocus | null;
-  /** The walked level trail (field screen's walk mode) and its smoothed peak. */
-  levelTrail?: LevelTrailProps;
+  /** The level trails, one per source (walk, imported survey), graded on one scale; each can be hidden from the legend. */
+  levelTrails?: LevelTrailProps[];
   className?: string;
 };
 
@@ -41,20 +41,26 @@ const WORLD: { center: [number, number]; zoom: number } = { center: [20, 0], zoo
  * The hunt on a map: lines of bearing, crossings, the fix with its 95 % error ellipse, how the
  * fix converged and where to stand next. Browser only (load through CaseMapClient).
  */
-export default function CaseMap({ bearings, fix, reportedPosition, selectedPosition, onMapTap, onSpotSelect, places, focus, levelTrail, className }: CaseMapProps) {
+export default function CaseMap({ bearings, fix, reportedPosition, selectedPosition, onMapTap, onSpotSelect, places, focus, levelTrails, className }: CaseMapProps) {
   const current = fix?.current?.fix;
   const okFix = current && current.ok ? current : null;
   const outlierIds = useMemo(() => new Set(okFix?.outlierIds ?? []), [okFix]);
   const spots = useMemo(() => fix?.nextSpots ?? [], [fix]);
+  const [hiddenTrails, setHiddenTrails] = useState<ReadonlySet<TrailSource>>(new Set());
+  const trails = useMemo(() => (levelTrails ?? []).filter((t) => t.points.length), [levelTrails]);
+  const shownTrails = trails.filter((t) => !hiddenTrails.has(t.source));
+  // An import is a deliberate act: the map fits again to show it (a walk's every reading does not move it).
+  const surveyCount = trails.find((t) => t.source === 'gpx')?.points.length ?? 0;
+  const toggleTrail = (s: TrailSource) => setHiddenTrails((h) => (h.has(s) ? new Set([...h].filter((x) => x !== s)) : new Set([...h, s])));
 
   const fitPoints = useMemo(() => {
     const pts: [number, number][] = bearings.map((b) => [b.lat, b.lon]);
     if (okFix) pts.push(...ellipsePolygon(okFix, okFix.ellipse, 16));
     for (const s of spots) pts.push([s.lat, s.lon]);
     if (reportedPosition) pts.push([reportedPosition.lat, reportedPosition.lon]);
-    for (const p of levelTrail?.points ?? []) pts.push([p.lat, p.lon]);
+    for (const t of trails) for (const p of t.points) pts.push([p.lat, p.lon]);
     return pts;
-  }, [bearings, okFix, spots, reportedPosition, levelTrail]);
+  }, [bearings, okFix, spots, reportedPosition, trails]);
 
   const legend: LegendKey[] = [];
   if (bearings.some((b) => !b.excluded && !outlierIds.has(b.id))) legend.push('bearing');
@@ -92,13 +98,15 @@ export default function CaseMap({ bearings, fix, reportedPosition, selectedPosit
           {reportedPosition && <ReporterMarker position={reportedPosition} />}
           {selectedPosition && <PickedPositionMarker position={selectedPosition} label="next bearing here" />}
           <SpotMarkers spots={spots} onSelect={onSpotSelect} />
-          {levelTrail && <LevelTrailLayer {...levelTrail} />}
+          {shownTrails.map((t) => (
+            <LevelTrailLayer key={t.source} {...t} range={trailRange(shownTrails)} named={trails.length > 1} />
+          ))}
           <FlyTo focus={focus} />
-          <FitBoundsOnce points={fitPoints} complete={fix !== undefined} refitKey={bearings.filter((b) => !b.excluded).length} holdKey={focus?.key} />
+          <FitBoundsOnce points={fitPoints} complete={fix !== undefined} refitKey={`${bearings.filter((b) => !b.excluded).length}:${surveyCount}`} holdKey={focus?.key} />
         </MapContainer>
       </div>
       <CaseMapLegend keys={legend} />
-      {levelTrail && <LevelTrailLegend points={levelTrail.points} />}
+      <LevelTrailLegend trails={trails} hidden={hiddenTrails} onToggle={toggleTrail} />
     </div>
   );
 }

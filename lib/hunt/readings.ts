@@ -5,7 +5,8 @@ import { getProfile } from '@/db/users';
 import type { CaseRow, User } from '@/db/types';
 import { sUnitsToDbm, trailPeak, type TrailPeak } from '@/lib/df';
 import { badRequest, conflict, forbidden } from '@/lib/errors';
-import { SurveyRefused, walkedSurvey } from '@/lib/survey/walked-survey';
+import { SurveyRefused, walkedSurvey, type SurveyPoint, type SurveyProblem } from '@/lib/survey/walked-survey';
+import { strongestPoint } from '@/lib/survey/strongest-point';
 import type { readingInputSchema } from '@/lib/validation/readings';
 import { caseAccess } from './access';
 
@@ -71,6 +72,11 @@ export function sameItemOrConflict<T extends { caseId: string; authorId: string 
   return existing;
 }
 
+/** 403 unless the user may add readings (walk or survey) to this case now: the committee or the assigned hunter, while it is hunted. */
+export function assertMayAddReadings(user: User, row: CaseRow): void {
+  if (!caseAccess(user, row).hunt) throw forbidden('Only the assigned hunter or a coordinator can add readings to this case, while it is being hunted.');
+}
+
 /**
  * Stores one level reading of the walk. A repeat of an item already stored (same clientId) answers
  * the stored row and stores nothing (`repeat: true`), so a retried send never makes a second one.
@@ -79,7 +85,7 @@ export function sameItemOrConflict<T extends { caseId: string; authorId: string 
 export async function addLevelReading(trx: Knex.Transaction, user: User, row: CaseRow, input: ReadingInput): Promise<{ reading: LevelReadingView; repeat: boolean }> {
   const before = sameItemOrConflict(await findLevelReadingByClientId(input.clientId, trx), user, row.id);
   if (before) return { reading: toLevelReadingView(before), repeat: true };
-  if (!caseAccess(user, row).hunt) throw forbidden('Only the assigned hunter or a coordinator can add readings to this case, while it is being hunted.');
+  assertMayAddReadings(user, row);
   const offset = (await getProfile(user.id, trx))?.sMeterOffsetDb ?? 0;
   const id = await insertLevelReading(trx, row.id, user.id, {
     clientId: input.clientId,
@@ -97,29 +103,79 @@ export async function addLevelReading(trx: Knex.Transaction, user: User, row: Ca
   return { reading: toLevelReadingView((await getLevelReading(id, trx))!), repeat: false };
 }
 
+type SurveyInput = { gpx: string; csv?: string; toleranceS: number; frequencyKhz?: number };
+
+/** At most this many problems are listed in one answer (the count says how many there were). */
+const MAX_LISTED_PROBLEMS = 100;
+
+/** What a survey would add to the trail: counts, time span, strongest raw reading and smoothed peak. */
+export type SurveySummary = {
+  points: number;
+  unmatchedCsvRows: number[];
+  toleranceS: number;
+  span: { from: string; to: string } | null;
+  strongest: { lat: number; lon: number; level: { unit: 'S' | 'dBm'; value: number }; levelDbm: number; takenAt: string } | null;
+  peak: ReturnType<typeof trailPeakView>;
+};
+
+type CheckedSurvey = { summary: SurveySummary; rows: (SurveyPoint & { levelDbm: number })[] } | { problems: SurveyProblem[]; problemCount: number };
+
 /**
- * A walked survey imported from GPX (+ CSV) into the same trail as walked readings (source 'gpx'):
- * all points or none, in one transaction; answers the count, the levels left out and the peak.
+ * Reads the files and converts every level to dBm as the import would store it (the caller's
+ * S-meter offset removed), writing nothing: either the points and their summary, or every
+ * problem found (GPX line, CSV row), the first MAX_LISTED_PROBLEMS of them listed.
  */
-export async function importSurvey(
-  trx: Knex.Transaction,
-  user: User,
-  row: CaseRow,
-  input: { gpx: string; csv?: string; toleranceS: number; frequencyKhz?: number },
-): Promise<{ imported: number; unmatchedCsvRows: number[]; toleranceS: number; peak: ReturnType<typeof trailPeakView> }> {
-  if (!caseAccess(user, row).hunt) throw forbidden('Only the assigned hunter or a coordinator can add readings to this case, while it is being hunted.');
+async function checkSurvey(q: Knex, user: User, row: CaseRow, input: SurveyInput): Promise<CheckedSurvey> {
+  assertMayAddReadings(user, row);
   let survey;
   try {
     survey = walkedSurvey(input.gpx, input.csv, input.toleranceS);
   } catch (err) {
-    if (err instanceof SurveyRefused) throw badRequest(err.message);
-    throw err;
+    if (!(err instanceof SurveyRefused)) throw err;
+    return { problems: err.problems.slice(0, MAX_LISTED_PROBLEMS), problemCount: err.problems.length };
   }
-  if (!survey.points.length) throw badRequest(`No level in the CSV lies within ${input.toleranceS} s of a track point: check the clocks or widen the tolerance.`);
-  const offset = (await getProfile(user.id, trx))?.sMeterOffsetDb ?? 0;
-  const views: { lat: number; lon: number; levelDbm: number }[] = [];
-  for (const p of survey.points) {
-    const levelDbm = readingDbm(p.level, input.frequencyKhz, offset);
+  if (!survey.points.length) {
+    const message = `No level in the CSV lies within ${input.toleranceS} s of a track point: check the clocks or widen the tolerance.`;
+    return { problems: [{ file: 'csv', message }], problemCount: 1 };
+  }
+  const offset = (await getProfile(user.id, q))?.sMeterOffsetDb ?? 0;
+  const rows = survey.points.map((p) => ({ ...p, levelDbm: readingDbm(p.level, input.frequencyKhz, offset) }));
+  const times = rows.map((p) => p.takenAt.getTime());
+  const top = strongestPoint(rows, (p) => p.levelDbm);
+  // The smoothed peak walks the points in the order taken, as the trail is drawn.
+  const inOrder = [...rows].sort((a, b) => a.takenAt.getTime() - b.takenAt.getTime());
+  return {
+    rows,
+    summary: {
+      points: rows.length,
+      unmatchedCsvRows: survey.unmatched,
+      toleranceS: survey.toleranceS,
+      span: { from: new Date(Math.min(...times)).toISOString(), to: new Date(Math.max(...times)).toISOString() },
+      strongest: top && { lat: top.lat, lon: top.lon, level: top.level, levelDbm: top.levelDbm, takenAt: top.takenAt.toISOString() },
+      peak: trailPeakView(inOrder),
+    },
+  };
+}
+
+/** The dry run of a survey import: what would be stored, or every problem, and nothing written. */
+export async function previewSurvey(q: Knex, user: User, row: CaseRow, input: SurveyInput): Promise<{ dryRun: true; ok: boolean; problems: SurveyProblem[]; problemCount: number } & Partial<SurveySummary>> {
+  const r = await checkSurvey(q, user, row, input);
+  if ('problems' in r) return { dryRun: true, ok: false, problems: r.problems, problemCount: r.problemCount };
+  return { dryRun: true, ok: true, problems: [], problemCount: 0, ...r.summary };
+}
+
+/**
+ * A walked survey imported from GPX (+ CSV) into the same trail as walked readings (source 'gpx'):
+ * all points or none, in one transaction; answers the count, the levels left out, the time span,
+ * the strongest reading and the smoothed peak. Any problem: 400 listing them, nothing stored.
+ */
+export async function importSurvey(trx: Knex.Transaction, user: User, row: CaseRow, input: SurveyInput): Promise<{ imported: number } & SurveySummary> {
+  const r = await checkSurvey(trx, user, row, input);
+  if ('problems' in r) {
+    const first = r.problems[0].message;
+    throw badRequest(r.problemCount > 1 ? `${first} (${r.problemCount} problems in all; nothing was imported)` : first, { problems: r.problems, problemCount: r.problemCount });
+  }
+  for (const p of r.rows) {
     await insertLevelReading(trx, row.id, user.id, {
       clientId: null,
       source: 'gpx',
@@ -128,12 +184,11 @@ export async function importSurvey(
       accuracyM: null,
       levelUnit: p.level.unit,
       levelValue: p.level.value,
-      levelDbm,
+      levelDbm: p.levelDbm,
       frequencyKhz: input.frequencyKhz ?? null,
       note: '',
       takenAt: p.takenAt,
     });
-    views.push({ lat: p.lat, lon: p.lon, levelDbm });
   }
-  return { imported: survey.points.length, unmatchedCsvRows: survey.unmatched, toleranceS: survey.toleranceS, peak: trailPeakView(views) };
+  return { imported: r.rows.length, ...r.summary };
 }

@@ -100,6 +100,7 @@ export const ACCESS: Row[] = [
   { name: 'fetch a thumbnail', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/files/${NO_FILE}/thumbnail`, expect: ALL_SIGNED_IN_NOT_FOUND },
   { name: 'delete a file', method: 'DELETE', path: (ids) => `/api/cases/${ids.openCase}/files/${NO_FILE}`, expect: ALL_SIGNED_IN_NOT_FOUND },
   { name: 'import a walked survey', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/readings/import`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
+  { name: 'check a walked survey (dry run)', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/readings/import?dryRun=1`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
   { name: 'read the level log', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/levels`, expect: HUNT_READ },
   { name: 'log a level', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/levels`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
   { name: 'read own profile', method: 'GET', path: () => '/api/profile', expect: ALL_SIGNED_IN },

@@ -37,4 +37,22 @@ describe('walked survey import', () => {
     expect(() => readLevelCsv(`when,how\n1,2`)).toThrow(/needs the columns time and level/);
     expect(() => walkedSurvey(gpxOf(walk))).toThrow(/No track point carries a <level>/);
   });
+
+  it('every bad point and row is named, not only the first, and a point without a time does not borrow the next one', () => {
+    // A point lacking <time> must be refused as itself: the parser's time list skips it, so reading by index would shift the rest.
+    const gpx = gpxOf(walk).replace(`<time>${iso(30)}</time>`, '');
+    let refused: SurveyRefused | undefined;
+    try {
+      walkedSurvey(gpx, `time,level\n${iso(10)},5\n${iso(20)},loud\nnoon,4`);
+    } catch (err) {
+      refused = err as SurveyRefused;
+    }
+    expect(refused).toBeInstanceOf(SurveyRefused);
+    expect(refused!.problems.map((p) => [p.file, p.line ?? p.row])).toEqual([
+      ['gpx', 7],
+      ['csv', 3],
+      ['csv', 4],
+    ]);
+    expect(refused!.message).toMatch(/^Track point 4 \(line 7\) has no <time>.*\(3 problems in all\)$/);
+  });
 });

@@ -8,6 +8,7 @@ import { useCaseEvents, useHuntData } from '@/components/hunt/use-hunt-data';
 import { NoticeBox } from '@/components/ui/notice-box';
 import { EvidenceCard } from '@/components/evidence/evidence-card';
 import { LevelLogCard } from '@/components/levels/level-log-card';
+import { SurveyImportCard } from '@/components/levels/survey-import-card';
 import { AssignmentCard } from './_components/assignment-card';
 import { CaseDetails } from './_components/case-details';
 import { CaseHeader } from './_components/case-header';
@@ -74,6 +75,11 @@ export function CaseView({ caseId, justFiled }: { caseId: string; justFiled: boo
         {c.can.seeHunt && (
           <div className="min-w-0">
             <HuntPanel c={c} bearings={bearings} fix={fix} error={error} refresh={refreshAll} />
+            {c.can.hunt && (
+              <div className="mt-4">
+                <SurveyImportCard caseId={c.id} defaultFrequencyKhz={c.report.frequenciesKhz?.[0]} />
+              </div>
+            )}
             <div className="mt-4">
               <LevelLogCard caseId={c.id} />
             </div>

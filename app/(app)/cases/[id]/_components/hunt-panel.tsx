@@ -9,13 +9,17 @@ import { CautionList } from '@/components/cautions';
 import { DoorsSection } from '@/components/hunt/doors-section';
 import { useDoors } from '@/components/hunt/use-doors';
 import { BearingList } from '@/components/hunt/bearing-list';
+import { useLevelTrails } from '@/components/field/use-level-trail';
+import type { QueuedItem } from '@/lib/field/queue';
 import { ConvergenceTrail } from './convergence-trail';
 import { FixSummary } from '@/components/hunt/fix-summary';
 import { CardSection } from './card-section';
 
 type LatLon = { lat: number; lon: number };
+/** The case page keeps no phone queue: its trails are what the server holds. */
+const NO_QUEUE: QueuedItem[] = [];
 
-/** The hunt: map, fix in words, how it converged, the bearings, and (for the hunter) adding one. */
+/** The hunt: map (with the level trails of the walk and imported surveys), fix in words, how it converged, the bearings, and (for the hunter) adding one. */
 export function HuntPanel({
   c,
   bearings,
@@ -31,6 +35,7 @@ export function HuntPanel({
 }) {
   const [picked, setPicked] = useState<LatLon | null>(null);
   const doors = useDoors(c.id, fix, c.can.hunt);
+  const { trails } = useLevelTrails(c.id, NO_QUEUE, true);
   const current = fix?.current?.fix;
   const outlierIds = current?.ok ? current.outlierIds : [];
   return (
@@ -56,6 +61,7 @@ export function HuntPanel({
         onSpotSelect={c.can.hunt ? (s) => setPicked({ lat: s.lat, lon: s.lon }) : undefined}
         places={doors.highlight}
         focus={doors.focus}
+        levelTrails={trails}
         className="h-80"
       />
       {c.can.hunt && <p className="text-sm text-ink-soft">Tap the map, or a suggested spot, to set where the next bearing is taken from.</p>}

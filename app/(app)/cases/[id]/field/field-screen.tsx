@@ -22,7 +22,7 @@ import { PrepareArea } from '@/components/field/prepare-area';
 import { QueuePanel } from '@/components/field/queue-panel';
 import { TrailPeakCard } from '@/components/field/trail-peak-card';
 import { useFieldQueue } from '@/components/field/use-field-queue';
-import { useLevelTrail } from '@/components/field/use-level-trail';
+import { useLevelTrails } from '@/components/field/use-level-trail';
 import { usePhonePosition } from '@/components/field/use-phone-position';
 import { WalkPanel } from '@/components/field/walk-panel';
 import { FixFigure } from '@/components/field/fix-figure';
@@ -51,7 +51,8 @@ export function FieldScreen({ caseId }: { caseId: string }) {
     void refresh();
     void trailQ.refresh();
   });
-  const trailQ = useLevelTrail(caseId, queue.items, caseDetail !== undefined);
+  const trailQ = useLevelTrails(caseId, queue.items, caseDetail !== undefined);
+  const walkPoints = trailQ.walk?.points.length ?? 0;
   // Paused while a form is open: the form reads the position itself (one request at a time to the phone's GPS).
   const phone = usePhonePosition(seeHunt && sheet === null);
   const lastQueued = useRef(false);
@@ -142,7 +143,7 @@ export function FieldScreen({ caseId }: { caseId: string }) {
         }}
         places={doors.highlight}
         focus={doors.focus}
-        levelTrail={trailQ.trail.points.length ? trailQ.trail : undefined}
+        levelTrails={trailQ.trails}
       />
 
       <div aria-live="polite" className="space-y-2">
@@ -172,7 +173,7 @@ export function FieldScreen({ caseId }: { caseId: string }) {
             onSaved={() => void trailQ.refresh()}
           />
           <TrailPeakCard
-            trail={trailQ.trail}
+            trail={trailQ.walk}
             onUse={(p) => {
               setSaved(null);
               setSelected({ position: p, why: 'the walk’s level peak' });
@@ -222,7 +223,7 @@ export function FieldScreen({ caseId }: { caseId: string }) {
               </>
             ) : (
               <p className="flex-[3] text-base font-semibold" data-testid="walk-bar">
-                {trailQ.trail.points.length} {trailQ.trail.points.length === 1 ? 'reading' : 'readings'} on the walk
+                {walkPoints} {walkPoints === 1 ? 'reading' : 'readings'} on the walk
               </p>
             )}
           </div>
