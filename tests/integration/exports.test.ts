@@ -115,6 +115,101 @@ describe('one case as GeoJSON (RFC 7946)', () => {
   });
 });
 
+describe('level log as CSV (what=levels)', () => {
+  // Rec. ITU-R P.372, Table 1 (man-made noise, median): Fam = c − d·log10(f/MHz) dB above kT0b,
+  // written here from the Recommendation, not from lib/df; noise power in b Hz = Fam − 174 + 10·log10(b) dBm.
+  const P372: Record<string, [number, number]> = { city: [76.8, 27.7], residential: [72.5, 27.7], rural: [67.2, 27.7], 'quiet-rural': [53.6, 28.6] };
+  const floorDbm = (env: string, fKhz: number, bHz: number) => P372[env][0] - P372[env][1] * Math.log10(fKhz / 1000) - 174 + 10 * Math.log10(bHz);
+  const COLUMNS = ['taken_at', 'frequency_khz', 'level_dbm', 'bandwidth_hz', 'expected_dbm', 'excess_db', 'phase', 'lat', 'lon'];
+
+  beforeAll(async () => {
+    const t0 = Date.now() - 7_200_000;
+    const readings = [
+      { frequencyKhz: 3650, level: { unit: 'S', value: 8 }, bandwidthHz: 2400, takenAt: new Date(t0).toISOString(), phase: 'before', lat: -31.0502, lon: 129.7488 },
+      { frequencyKhz: 7100, level: { unit: 'dBm', value: -81.5 }, bandwidthHz: 500, takenAt: new Date(t0 + 60_000).toISOString(), phase: 'before' },
+      { frequencyKhz: 7100, level: { unit: 'S', value: 9, overS9Db: 10 }, bandwidthHz: 2400, takenAt: new Date(t0 + 120_000).toISOString(), phase: 'after' },
+    ];
+    for (const r of readings) expect((await api(`/api/cases/${openId}/levels`, { session: hunter, body: r })).status).toBe(201);
+  });
+
+  /** The same readings straight from case_levels, the test's own SQL. */
+  async function fromSql(where: string, bindings: unknown[]) {
+    const { rows } = await db.raw(
+      `SELECT c.reference, l.taken_at, l.frequency_khz, l.level_dbm, l.bandwidth_hz, l.phase, l.lat, l.lon
+         FROM case_levels l JOIN cases c ON c.id = l.case_id WHERE ${where} ORDER BY c.reference, l.taken_at, l.id`,
+      bindings as never[],
+    );
+    return rows as { reference: string; taken_at: Date; frequency_khz: number; level_dbm: number; bandwidth_hz: number; phase: string; lat: number | null; lon: number | null }[];
+  }
+
+  function expectSameReadings(csvRows: Record<string, string>[], sqlRows: Awaited<ReturnType<typeof fromSql>>, env: string) {
+    expect(csvRows).toHaveLength(sqlRows.length);
+    sqlRows.forEach((s, i) => {
+      const c = csvRows[i];
+      expect(c.taken_at).toBe(s.taken_at.toISOString()); // ISO 8601 UTC
+      expect(Number(c.frequency_khz)).toBe(s.frequency_khz);
+      expect(Number(c.bandwidth_hz)).toBe(s.bandwidth_hz);
+      expect(Number(c.level_dbm)).toBeCloseTo(s.level_dbm, 1);
+      const floor = floorDbm(env, s.frequency_khz, s.bandwidth_hz);
+      expect(Number(c.expected_dbm)).toBeCloseTo(floor, 1);
+      expect(Number(c.excess_db)).toBeCloseTo(s.level_dbm - floor, 1);
+      expect(c.phase).toBe(s.phase);
+      expect(c.lat === '' ? null : Number(c.lat)).toBe(s.lat);
+      expect(c.lon === '' ? null : Number(c.lon)).toBe(s.lon);
+    });
+  }
+
+  it('one case: every reading of the log, with units in the column names, read back by csv-parse equals the table', async () => {
+    const [{ noise_environment: env }] = (await db.raw('SELECT noise_environment FROM club_settings WHERE id = 1')).rows;
+    const res = await raw(`/api/cases/${openId}/export?format=csv&what=levels`, hunter);
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toMatch(/text\/csv/);
+    const text = await res.text();
+    expect(text.split('\n')[0].trim()).toBe(COLUMNS.join(','));
+    const rows = parse(text, { columns: true }) as Record<string, string>[];
+    const sql = await fromSql('l.case_id = ?', [openId]);
+    expect(sql.length).toBeGreaterThanOrEqual(3);
+    expectSameReadings(rows, sql, env);
+    // IARU Region 1 (Technical Recommendation R.1): S9 = −73 dBm below 30 MHz, so S9+10 dB = −63 dBm.
+    expect(rows.some((r) => r.phase === 'after' && Number(r.level_dbm) === -63)).toBe(true);
+    console.log(`[exports] levels CSV of one case: ${rows.length} rows, environment ${env}`);
+  });
+
+  it('the filtered set: each reading under its case reference, the same as SQL over the same cases', async () => {
+    const [{ noise_environment: env }] = (await db.raw('SELECT noise_environment FROM club_settings WHERE id = 1')).rows;
+    const res = await raw('/api/cases/export?format=csv&what=levels&q=Import%20target', coordinator);
+    expect(res.status).toBe(200);
+    const rows = parse(await res.text(), { columns: true }) as Record<string, string>[];
+    expect(Object.keys(rows[0])).toEqual(['case_reference', ...COLUMNS]);
+    const sql = await fromSql("(c.reference || ' ' || c.title || ' ' || c.description) ILIKE '%Import target%'", []);
+    expect(rows.map((r) => r.case_reference)).toEqual(sql.map((s) => s.reference));
+    expectSameReadings(rows, sql, env);
+  });
+
+  it('a table other than the default is CSV only; an unknown one is a 400; a member gets none', async () => {
+    expect((await raw(`/api/cases/${openId}/export?format=geojson&what=levels`, coordinator)).status).toBe(400);
+    expect((await raw(`/api/cases/${openId}/export?format=csv&what=passwords`, coordinator)).status).toBe(400);
+    expect((await raw('/api/cases/export?format=kml&what=levels', coordinator)).status).toBe(400);
+    expect((await raw(`/api/cases/${openId}/export?format=csv&what=levels`, await signIn('member@example.test'))).status).toBe(403); // members never see the hunt
+  });
+});
+
+describe('CSV injection (OWASP "CSV Injection": a cell starting with = + - @ is a formula to a spreadsheet)', () => {
+  it('free text that starts like a formula leaves with a leading apostrophe and comes back unchanged through the import', async () => {
+    const note = `=HYPERLINK("http://evil.example.test","x") ${Date.now()}`;
+    const csv = ['lat,lon,azimuth_deg,reference,sigma_deg,note', `-31.0495,129.7480,75,true,3,"${note.replace(/"/g, '""')}"`].join('\n');
+    expect((await api(`/api/cases/${openId}/bearings/import`, { session: hunter, body: csv, headers: { 'content-type': 'text/csv' } })).status).toBe(201);
+    const out = parse(await (await raw(`/api/cases/${openId}/export?format=csv`, hunter)).text(), { columns: true }) as Record<string, string>[];
+    const cell = out.find((r) => r.note.includes(String(note.split(' ').at(-1))))!.note;
+    expect(cell).toBe(`'${note}`);
+    expect(out.every((r) => !/^[=+\-@]/.test(r.note) && !/^[=+\-@]/.test(r.author))).toBe(true);
+    const title = `@SUM(1+1) formula title ${Date.now()}`;
+    expect((await api('/api/cases', { session: coordinator, body: noiseReport({ title }) })).status).toBe(201);
+    const set = parse(await (await raw(`/api/cases/export?format=csv&q=${encodeURIComponent('formula title')}`, coordinator)).text(), { columns: true }) as Record<string, string>[];
+    expect(set.find((r) => r.title.endsWith(title))!.title).toBe(`'${title}`);
+  });
+});
+
 describe('bearings import', () => {
   const count = async (id: string) => Number((await db('bearings').where({ case_id: id }).count<{ n: string }[]>({ n: '*' }))[0].n);
   const BAD = ['lat,lon,azimuth_deg,reference,sigma_deg', '-31.05,129.75,45,true,3', '95,129.75,45,true,3', '-31.05,129.75,abc,true,3', '-31.05,129.75,45,grid,3'].join('\n');
