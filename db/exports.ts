@@ -92,6 +92,8 @@ export const CLUB_EXPORT_TABLES: Record<string, string[]> = {
   notices: ['id', 'case_id', 'template_key', 'status', 'recipient_name', 'postal_address', 'email', 'sent_at', 'delivered_on', 'created_at'],
   notice_answers: ['id', 'notice_id', 'kind', 'message', 'contact', 'created_at'],
   notice_templates: ['key', 'title', 'subject', 'body', 'version', 'updated_at'],
+  case_levels: ['id', 'case_id', 'client_id', 'author_id', 'frequency_khz', 'level_unit', 'level_value', 'over_s9_db', 'level_dbm', 'bandwidth_hz', 'taken_at', 'lat', 'lon', 'phase', 'created_at'],
+  level_readings: ['id', 'case_id', 'author_id', 'client_id', 'source', 'lat', 'lon', 'accuracy_m', 'level_unit', 'level_value', 'level_dbm', 'frequency_khz', 'note', 'taken_at', 'created_at'],
 };
 
 /** One table of the club export, in key order, a thousand rows at a time. */

@@ -5,6 +5,7 @@ import { parse } from 'csv-parse/sync';
 import { booleanClockwise } from '@turf/turf';
 import { Geodesic } from 'geographiclib-geodesic';
 import { PDFDocument } from 'pdf-lib';
+import yauzl from 'yauzl';
 import { db } from '@/db';
 import { api, BASE_URL, signIn, type Session } from '../support/http';
 import { noiseReport } from '../support/fixtures';
@@ -39,6 +40,30 @@ beforeAll(async () => {
   const a = await api(`/api/cases/${openId}`, { method: 'PATCH', session: coordinator, body: { version: filed.json.case.version, assigneeId: hunterId } });
   expect(a.status, a.text).toBe(200);
 });
+
+/** Every entry of a ZIP, read by yauzl (a reader apart from the writer, yazl), in the archive's order. */
+function unzip(buf: Buffer): Promise<Map<string, string>> {
+  return new Promise((resolve, reject) => {
+    yauzl.fromBuffer(buf, { lazyEntries: true }, (err, zip) => {
+      if (err || !zip) return reject(err);
+      const out = new Map<string, string>();
+      zip.on('entry', (entry: yauzl.Entry) => {
+        zip.openReadStream(entry, (e, stream) => {
+          if (e || !stream) return reject(e);
+          const chunks: Buffer[] = [];
+          stream.on('data', (c: Buffer) => chunks.push(c));
+          stream.on('end', () => {
+            out.set(entry.fileName, Buffer.concat(chunks).toString('utf8'));
+            zip.readEntry();
+          });
+        });
+      });
+      zip.on('end', () => resolve(out));
+      zip.on('error', reject);
+      zip.readEntry();
+    });
+  });
+}
 
 function checkPosition(p: unknown) {
   expect(Array.isArray(p) && p.length >= 2).toBe(true);
@@ -267,15 +292,32 @@ describe('set and club exports, streamed', () => {
     expect(csv.map((r) => r.reference)).toContain(locatedRef);
   });
 
-  it('the club export is JSON lines without password hashes', async () => {
+  it('the club export is a ZIP: one JSON-lines file per table, a manifest whose counts match SQL, no password anywhere; admins only', async () => {
     const res = await raw('/api/club/export', admin);
     expect(res.status).toBe(200);
-    const text = await res.text();
-    expect(text).not.toMatch(/password_hash|\$2[aby]\$/);
-    const lines = text.trim().split('\n').map((l) => JSON.parse(l));
-    expect(lines[0].format).toBe('quietfix-club-export');
-    const [{ n }] = (await db.raw('SELECT count(*)::int AS n FROM cases')).rows;
-    expect(lines.filter((l) => l.table === 'cases')).toHaveLength(n);
+    expect(res.headers.get('content-type')).toBe('application/zip');
+    expect(res.headers.get('content-length')).toBeNull(); // streamed, not a buffer of known size
+    const files = await unzip(Buffer.from(await res.arrayBuffer()));
+    const names = [...files.keys()];
+    expect(names.at(-1)).toBe('manifest.json');
+    const manifest = JSON.parse(files.get('manifest.json')!);
+    expect(manifest.format).toBe('quietfix-club-export');
+    expect(manifest.schemaVersion).toBeGreaterThanOrEqual(2);
+    expect(Math.abs(Date.parse(manifest.exportedAt) - Date.now())).toBeLessThan(60_000);
+    expect(Object.keys(manifest.files).sort()).toEqual(names.filter((n) => n !== 'manifest.json').sort());
+    for (const t of ['users', 'cases', 'bearings', 'case_levels', 'notices', 'notice_templates']) expect(names).toContain(`${t}.jsonl`);
+    for (const [file, { table, rows }] of Object.entries(manifest.files) as [string, { table: string; rows: number }][]) {
+      const lines = files.get(file)!.split('\n').filter(Boolean).map((l) => JSON.parse(l) as Record<string, unknown>);
+      const [{ n }] = (await db.raw('SELECT count(*)::int AS n FROM ??', [table])).rows; // the test's own count
+      expect(lines, file).toHaveLength(n);
+      expect(rows, file).toBe(n);
+      for (const row of lines) expect(Object.keys(row).filter((k) => /password|token|secret|hash/i.test(k)), file).toEqual([]);
+    }
+    const everything = [...files.values()].join('\n');
+    expect(everything).not.toMatch(/"password[^"]*"\s*:/i);
+    expect(everything).not.toMatch(/\$2[aby]\$\d\d\$/); // bcrypt's modular crypt format
+    const [{ n: cases }] = (await db.raw('SELECT count(*)::int AS n FROM cases')).rows;
+    console.log(`[exports] club zip: ${names.length} files, ${cases} cases, ${everything.length} characters of JSON lines`);
     expect((await raw('/api/club/export', coordinator)).status).toBe(403);
   });
 });
