@@ -6,6 +6,7 @@ import { booleanClockwise } from '@turf/turf';
 import { Geodesic } from 'geographiclib-geodesic';
 import { PDFDocument } from 'pdf-lib';
 import yauzl from 'yauzl';
+import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { db } from '@/db';
 import { api, BASE_URL, signIn, type Session } from '../support/http';
 import { noiseReport } from '../support/fixtures';
@@ -16,7 +17,7 @@ import { noiseReport } from '../support/fixtures';
  * §3.1.6; exterior rings counter-clockwise, the right-hand rule, §3.1.6, checked with Turf's
  * booleanClockwise; no "crs" member, §4), bearing lines against GeographicLib's geodesic
  * (Karney 2013), KML 2.2 read back by @tmcw/togeojson with @xmldom/xmldom, CSV (RFC 4180) read by
- * csv-parse and fed back through the import's dry run, the dossier opened by pdf-lib.
+ * csv-parse and fed back through the import's dry run, the dossier opened by pdf-lib and its page text read by PDF.js (Mozilla's reader, pdfjs-dist).
  */
 let coordinator: Session;
 let hunter: Session;
@@ -323,6 +324,23 @@ describe('set and club exports, streamed', () => {
 });
 
 describe('case dossier', () => {
+  /** The text of every page, as PDF.js (Mozilla's reference reader, a package apart from the writer pdf-lib) extracts it. */
+  async function pdfText(bytes: Uint8Array): Promise<string[]> {
+    const doc = await getDocument({ data: bytes, isEvalSupported: false, useSystemFonts: false, disableFontFace: true, verbosity: 0 }).promise;
+    const pages: string[] = [];
+    for (let i = 1; i <= doc.numPages; i++) {
+      const content = await (await doc.getPage(i)).getTextContent();
+      pages.push(content.items.map((it) => ('str' in it ? it.str : '')).join('\n'));
+    }
+    await doc.destroy();
+    return pages;
+  }
+  const dossier = async (id: string) => {
+    const res = await raw(`/api/cases/${id}/dossier.pdf`, coordinator);
+    expect(res.status).toBe(200);
+    return new Uint8Array(await res.arrayBuffer());
+  };
+
   it('is a PDF that opens and names the case; committee only', async () => {
     const res = await raw(`/api/cases/${locatedId}/dossier.pdf`, coordinator);
     expect(res.status).toBe(200);
@@ -332,6 +350,34 @@ describe('case dossier', () => {
     expect(pdf.getTitle()).toBe(`Case dossier ${locatedRef}`);
     expect(pdf.getSubject()).toContain(locatedRef);
     expect((await raw(`/api/cases/${locatedId}/dossier.pdf`, hunter)).status).toBe(403);
+  });
+
+  it('its pages read: the reference and title, one bearings row per bearing as in the table, the reporter withheld without consent', async () => {
+    const text = (await pdfText(await dossier(locatedId))).join('\n');
+    const { rows: [c] } = await db.raw('SELECT c.reference, c.title, c.consent_share_name, u.name AS reporter FROM cases c JOIN users u ON u.id = c.reporter_id WHERE c.id = ?', [locatedId]);
+    expect(text).toContain(`Case dossier ${c.reference}`);
+    expect(text).toContain(c.title);
+    const { rows: bearings } = await db.raw('SELECT lat, lon, azimuth_entered_deg, azimuth_true_deg, taken_at FROM bearings WHERE case_id = ? ORDER BY taken_at', [locatedId]);
+    expect(bearings.length).toBeGreaterThan(0);
+    expect(text).toContain(`Bearings (${bearings.length})`);
+    for (const b of bearings) {
+      for (const cell of [new Date(b.taken_at).toISOString().slice(0, 16).replace('T', ' '), Number(b.lat).toFixed(5), Number(b.lon).toFixed(5), `${Number(b.azimuth_true_deg).toFixed(1)}°`]) {
+        expect(text, cell).toContain(cell);
+      }
+    }
+    expect(c.consent_share_name).toBe(false);
+    expect(text).toContain('name withheld');
+    expect(text).not.toContain(c.reporter); // nowhere: not in the case part, not in the timeline
+  });
+
+  it('with the reporter\'s consent their name is printed', async () => {
+    const member = await signIn('member@example.test');
+    const filed = await api('/api/cases', { session: member, body: noiseReport({ title: `Consenting reporter ${Date.now()}`, consentShareName: true }) });
+    expect(filed.status, filed.text).toBe(201);
+    const { rows: [u] } = await db.raw("SELECT name FROM users WHERE email = 'member@example.test'");
+    const text = (await pdfText(await dossier(filed.json.case.id))).join('\n');
+    expect(text).toContain(`Reported by: ${u.name}`);
+    expect(text).not.toContain('name withheld');
   });
 });
 
