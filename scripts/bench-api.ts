@@ -92,11 +92,11 @@ async function main() {
   const build = spawnSync('bash', ['-c', 'source scripts/lib.sh && ensure_secret && ensure_build'], { cwd: ROOT, stdio: 'inherit' });
   if (build.status !== 0) throw new Error('next build failed');
   const secret = process.env.NEXTAUTH_SECRET ?? readFileSync(`${ROOT}.data/nextauth-secret`, 'utf8').trim();
-  const dbEnv = { DB_NAME: DB, NODE_ENV: 'production', NEXTAUTH_SECRET: secret, NEXT_TELEMETRY_DISABLED: '1', DB_POOL_MAX: '10' };
+  const dbEnv = { DB_NAME: DB, DB_HOST: process.env.DB_HOST ?? '127.0.0.1', DB_PORT: process.env.DB_PORT ?? '54329', NODE_ENV: 'production', NEXTAUTH_SECRET: secret, NEXT_TELEMETRY_DISABLED: '1', DB_POOL_MAX: '10' };
   const appEnv = (port: number) => ({ ...dbEnv, APP_URL: `http://127.0.0.1:${port}`, NEXTAUTH_URL: `http://127.0.0.1:${port}` });
   const serve = (port: number) => start(`app :${port}`, ['--import', 'tsx', 'scripts/serve.ts', '-p', String(port), '-H', '127.0.0.1'], appEnv(port));
 
-  const client = new pg.Client({ host: process.env.DB_HOST ?? '127.0.0.1', port: Number(process.env.DB_PORT ?? 54329), user: process.env.DB_USER ?? 'quietfix', password: process.env.DB_PASSWORD ?? 'quietfix-local', database: DB });
+  const client = new pg.Client({ host: dbEnv.DB_HOST, port: Number(dbEnv.DB_PORT), user: process.env.DB_USER ?? 'quietfix', password: process.env.DB_PASSWORD ?? 'quietfix-local', database: DB });
   await client.connect();
   const { rows } = await client.query("SELECT id, (SELECT count(*) FROM cases) AS cases, (SELECT count(*) FROM bearings) AS bearings FROM users WHERE email = 'coordinator@example.test'");
   await client.end();
