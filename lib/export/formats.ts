@@ -6,11 +6,8 @@ import type { ExportCaseRow, ExportLevelRow } from '@/db/exports';
 import type { NoiseEnvironment } from '@/lib/df';
 import { excessOverFloor } from '@/lib/levels/level-log';
 import { guardCsvText } from './csv-text';
+import type { ExportFormat } from '@/lib/validation/exports';
 import type { ExportBearing } from './case-geojson';
-
-import { EXPORT_FORMATS, type ExportFormat } from '@/lib/validation/exports';
-
-export { EXPORT_FORMATS, exportParamsSchema, type ExportFormat } from '@/lib/validation/exports';
 
 export const CONTENT_TYPES: Record<ExportFormat, string> = {
   geojson: 'application/geo+json', // RFC 7946 §12

@@ -1,10 +1,11 @@
 import { NextResponse } from 'next/server';
 import { route } from '@/lib/api/handler';
+import { exportParamsSchema } from '@/lib/validation/exports';
 import { requireUser } from '@/lib/auth/session';
 import { exportCaseBatches, filteredLevelBatches } from '@/db/exports';
 import { getClubSettings } from '@/db/settings';
 import { parseQueueFilter } from '@/lib/validation/queue';
-import { caseCsvRows, caseFeature, CONTENT_TYPES, csvDownload, exportParamsSchema, KML_TAIL, kmlHead, kmlPlacemarks, levelCsvChunks, textStream } from '@/lib/export/formats';
+import { caseCsvRows, caseFeature, CONTENT_TYPES, csvDownload, KML_TAIL, kmlHead, kmlPlacemarks, levelCsvChunks, textStream } from '@/lib/export/formats';
 
 const formatSchema = exportParamsSchema(['cases', 'levels']);
 

@@ -1,11 +1,12 @@
 import { NextResponse } from 'next/server';
 import { route } from '@/lib/api/handler';
+import { exportParamsSchema } from '@/lib/validation/exports';
 import { requireUser } from '@/lib/auth/session';
 import { listBearings } from '@/db/bearings';
 import { latestFixSnapshot } from '@/db/fixes';
 import { caseIdSchema, loadVisibleCase } from '@/lib/hunt/case-detail';
 import { caseGeoJson } from '@/lib/export/case-geojson';
-import { bearingsCsv, CONTENT_TYPES, csvDownload, exportParamsSchema, levelCsvChunks, toKml } from '@/lib/export/formats';
+import { bearingsCsv, CONTENT_TYPES, csvDownload, levelCsvChunks, toKml } from '@/lib/export/formats';
 import { caseLevelBatches } from '@/db/exports';
 import { getClubSettings } from '@/db/settings';
 import { forbidden } from '@/lib/errors';
