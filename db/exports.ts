@@ -1,6 +1,8 @@
 import type { Knex } from 'knex';
 import { db } from './index';
 import { applyQueueFilter, LIST_COLUMNS } from './queue';
+import { whereCaseRight } from './case-scope';
+import type { LevelRow } from './levels';
 import type { Role } from './types';
 import type { QueueFilter } from '@/lib/validation/queue';
 
@@ -47,6 +49,38 @@ export async function* exportCaseBatches(viewer: { id: string; role: Role }, f: 
   }
 }
 
+export type ExportLevelRow = Pick<LevelRow, 'id' | 'frequencyKhz' | 'levelDbm' | 'bandwidthHz' | 'takenAt' | 'lat' | 'lon' | 'phase'> & { caseReference: string };
+
+/**
+ * Level-log readings (case_levels) of the cases `scope` leaves in, in case-reference then time
+ * order, a thousand at a time (keyset on reference, taken_at, id): never the whole log in memory.
+ * Only cases whose hunt the viewer may see (the level log is part of the hunt).
+ */
+async function* levelBatches(viewer: { id: string; role: Role }, scope: (b: Knex.QueryBuilder) => Knex.QueryBuilder, q: Knex): AsyncGenerator<ExportLevelRow[]> {
+  let after: [string, string, string] | null = null;
+  for (;;) {
+    const b = scope(whereCaseRight(q('cases as c'), viewer, 'seeHunt'))
+      .join('case_levels as l', 'l.case_id', 'c.id')
+      .select({ id: 'l.id', caseReference: 'c.reference', frequencyKhz: 'l.frequency_khz', levelDbm: 'l.level_dbm', bandwidthHz: 'l.bandwidth_hz', takenAt: 'l.taken_at', lat: 'l.lat', lon: 'l.lon', phase: 'l.phase' })
+      .select(q.raw('l.taken_at::text as taken_at_key'))
+      .orderBy([{ column: 'c.reference' }, { column: 'l.taken_at' }, { column: 'l.id' }])
+      .limit(BATCH);
+    if (after !== null) b.whereRaw('(c.reference, l.taken_at, l.id) > (?, ?::timestamptz, ?::uuid)', after);
+    const rows = (await b) as (ExportLevelRow & { taken_at_key: string })[];
+    if (rows.length === 0) return;
+    yield rows;
+    if (rows.length < BATCH) return;
+    const last = rows[rows.length - 1];
+    after = [last.caseReference, last.taken_at_key, last.id];
+  }
+}
+
+/** One case's level log, streamed (see levelBatches). */
+export const caseLevelBatches = (viewer: { id: string; role: Role }, caseId: string, q: Knex = db) => levelBatches(viewer, (b) => b.where('c.id', caseId), q);
+
+/** The level logs of the cases matching the queue's filters, streamed (see levelBatches). */
+export const filteredLevelBatches = (viewer: { id: string; role: Role }, f: QueueFilter, q: Knex = db) => levelBatches(viewer, (b) => applyQueueFilter(b, viewer, f), q);
+
 /** What the club export holds, table by table (no password hashes, no token secrets). */
 export const CLUB_EXPORT_TABLES: Record<string, string[]> = {
   club_settings: ['id', 'club_name', 'contact_email', 'locate_threshold_m', 'reminder_days', 'max_position_accuracy_m', 'noise_environment', 'upload_max_mb', 'updated_at'],
@@ -58,6 +92,8 @@ export const CLUB_EXPORT_TABLES: Record<string, string[]> = {
   notices: ['id', 'case_id', 'template_key', 'status', 'recipient_name', 'postal_address', 'email', 'sent_at', 'delivered_on', 'created_at'],
   notice_answers: ['id', 'notice_id', 'kind', 'message', 'contact', 'created_at'],
   notice_templates: ['key', 'title', 'subject', 'body', 'version', 'updated_at'],
+  case_levels: ['id', 'case_id', 'client_id', 'author_id', 'frequency_khz', 'level_unit', 'level_value', 'over_s9_db', 'level_dbm', 'bandwidth_hz', 'taken_at', 'lat', 'lon', 'phase', 'created_at'],
+  level_readings: ['id', 'case_id', 'author_id', 'client_id', 'source', 'lat', 'lon', 'accuracy_m', 'level_unit', 'level_value', 'level_dbm', 'frequency_khz', 'note', 'taken_at', 'created_at'],
 };
 
 /** One table of the club export, in key order, a thousand rows at a time. */

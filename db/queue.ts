@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import { db } from './index';
 import { whereCaseRight } from './case-scope';
 import type { CaseStatus, Role } from './types';
-import type { QueueFilter, QueueQuery, QueueSort } from '@/lib/validation/queue';
+import { areaPolygon, type QueueFilter, type QueueQuery, type QueueSort } from '@/lib/validation/queue';
 import { badRequest } from '@/lib/errors';
 
 /** Counting stops here; the queue shows "10,000+". */
@@ -79,7 +79,8 @@ export function applyQueueFilter<B extends Knex.QueryBuilder>(b: B, viewer: View
     b.whereRaw("(c.reference || ' ' || c.title || ' ' || c.description) ILIKE ?", [like]);
   }
   if (f.minDays !== undefined) b.whereRaw("c.status_since <= now() - make_interval(days => ?)", [f.minDays]);
-  if (f.area) b.whereRaw('c.map_point && ST_MakeEnvelope(?, ?, ?, ?, 4326)', [f.area.west, f.area.south, f.area.east, f.area.north]);
+  // ST_Intersects (inside or on the edge) does its own && on the GiST index cases_map_point_gist.
+  if (f.area) b.whereRaw('ST_Intersects(c.map_point, ST_SetSRID(ST_GeomFromGeoJSON(?), 4326))', [JSON.stringify(areaPolygon(f.area))]);
   return b;
 }
 

@@ -2,11 +2,11 @@
 
 import 'leaflet/dist/leaflet.css';
 import L from 'leaflet';
-import { useEffect, useMemo, useState } from 'react';
-import { MapContainer, Marker, Rectangle, Tooltip, useMap, useMapEvents } from 'react-leaflet';
+import { useEffect, useMemo } from 'react';
+import { CircleMarker, MapContainer, Marker, Polygon, Polyline, Rectangle, Tooltip, useMap, useMapEvents } from 'react-leaflet';
 import type { CaseStatus } from '@/db/types';
 import type { MapCell } from '@/db/case-map';
-import type { Bbox } from '@/lib/validation/queue';
+import type { Area, Bbox } from '@/lib/validation/queue';
 import { BaseLayers } from './base-layers';
 import { PALETTE, PLAIN_BACKGROUND } from './map-styles';
 import { STATUS_COLOURS, statusSymbolSvg } from './case-status-symbols';
@@ -50,28 +50,35 @@ function ViewReporter({ onView }: { onView: (v: MapView) => void }) {
   return null;
 }
 
-function AreaDrawer({ drawing, onArea }: { drawing: boolean; onArea: (a: Bbox) => void }) {
-  const [first, setFirst] = useState<L.LatLng | null>(null);
+/** While drawing, a tap on the map adds a vertex; the vertices so far show as a dashed line with dots. */
+function AreaDraft({ draft, onPoint }: { draft: [number, number][] | null; onPoint: (lonLat: [number, number]) => void }) {
   useMapEvents({
     click(e) {
-      if (!drawing) return;
-      if (!first) return setFirst(e.latlng);
-      onArea({ west: Math.min(first.lng, e.latlng.lng), south: Math.min(first.lat, e.latlng.lat), east: Math.max(first.lng, e.latlng.lng), north: Math.max(first.lat, e.latlng.lat) });
-      setFirst(null);
+      if (draft) onPoint([e.latlng.lng, e.latlng.lat]);
     },
   });
-  return first ? <Marker position={first} icon={caseIcon('notified')} /> : null;
+  if (!draft?.length) return null;
+  const positions = draft.map(([lon, lat]) => [lat, lon] as [number, number]);
+  return (
+    <>
+      <Polyline positions={positions} className="qf-area-draft" pathOptions={{ color: PALETTE.hush900, weight: 2, dashArray: '4 4' }} interactive={false} />
+      {positions.map((pos, i) => (
+        <CircleMarker key={i} center={pos} radius={5} className="qf-area-vertex" pathOptions={{ color: PALETTE.hush900, weight: 2, fillColor: '#fff', fillOpacity: 1 }} interactive={false} />
+      ))}
+    </>
+  );
 }
 
 export type CasesOverviewMapProps = {
   cells: MapCell[];
   heat: boolean;
   cellDeg: number;
-  area?: Bbox;
-  drawing: boolean;
+  area?: Area;
+  /** the vertices being drawn ([lon, lat]), or null when not drawing */
+  draft: [number, number][] | null;
   start: { lat: number; lon: number; zoom: number };
   onView: (v: MapView) => void;
-  onArea: (a: Bbox) => void;
+  onDraftPoint: (lonLat: [number, number]) => void;
   onOpenCase: (id: string) => void;
 };
 
@@ -79,12 +86,14 @@ export type CasesOverviewMapProps = {
 export default function CasesOverviewMap(p: CasesOverviewMapProps) {
   const max = useMemo(() => Math.max(1, ...p.cells.map((c) => c.count)), [p.cells]);
   return (
-    <div className={`relative isolate h-96 overflow-hidden rounded-lg border border-ink/20 ${p.drawing ? 'cursor-crosshair' : ''}`}>
+    <div className={`relative isolate h-96 overflow-hidden rounded-lg border border-ink/20 ${p.draft ? 'qf-drawing cursor-crosshair' : ''}`}>
       <MapContainer center={[p.start.lat, p.start.lon]} zoom={p.start.zoom} className="h-full w-full" style={{ background: PLAIN_BACKGROUND }} attributionControl={false}>
         <BaseLayers />
         <ViewReporter onView={p.onView} />
-        <AreaDrawer drawing={p.drawing} onArea={p.onArea} />
-        {p.area && <Rectangle bounds={[[p.area.south, p.area.west], [p.area.north, p.area.east]]} pathOptions={{ color: PALETTE.hush900, weight: 2, dashArray: '6 4', fill: false }} />}
+        <AreaDraft draft={p.draft} onPoint={p.onDraftPoint} />
+        {p.area && !p.draft && (
+          <Polygon positions={p.area.vertices.map(([lon, lat]) => [lat, lon] as [number, number])} className="qf-area" pathOptions={{ color: PALETTE.hush900, weight: 2, dashArray: '6 4', fillOpacity: 0.05 }} interactive={false} />
+        )}
         {p.heat
           ? p.cells.map((c, i) => (
               <Rectangle
@@ -97,11 +106,11 @@ export default function CasesOverviewMap(p: CasesOverviewMapProps) {
             ))
           : p.cells.map((c, i) =>
               c.case ? (
-                <Marker key={c.case.id} position={[c.lat, c.lon]} icon={caseIcon(c.case.status)} title={`${c.case.reference} ${c.case.title}`} eventHandlers={{ click: () => !p.drawing && p.onOpenCase(c.case!.id) }}>
+                <Marker key={c.case.id} position={[c.lat, c.lon]} icon={caseIcon(c.case.status)} title={`${c.case.reference} ${c.case.title}`} eventHandlers={{ click: (e) => (p.draft ? p.onDraftPoint([e.latlng.lng, e.latlng.lat]) : p.onOpenCase(c.case!.id)) }}>
                   <Tooltip>{`${c.case.reference} · ${c.case.status} · ${c.case.title}`}</Tooltip>
                 </Marker>
               ) : (
-                <ClusterMarker key={`c${i}`} cell={c} />
+                <ClusterMarker key={`c${i}`} cell={c} onDrawPoint={p.draft ? p.onDraftPoint : undefined} />
               ),
             )}
       </MapContainer>
@@ -109,10 +118,11 @@ export default function CasesOverviewMap(p: CasesOverviewMapProps) {
   );
 }
 
-function ClusterMarker({ cell }: { cell: MapCell }) {
+function ClusterMarker({ cell, onDrawPoint }: { cell: MapCell; onDrawPoint?: (lonLat: [number, number]) => void }) {
   const map = useMap();
+  const click = (e: L.LeafletMouseEvent) => (onDrawPoint ? onDrawPoint([e.latlng.lng, e.latlng.lat]) : map.setView([cell.lat, cell.lon], Math.min(map.getZoom() + 2, 19)));
   return (
-    <Marker position={[cell.lat, cell.lon]} icon={clusterIcon(cell)} eventHandlers={{ click: () => map.setView([cell.lat, cell.lon], Math.min(map.getZoom() + 2, 19)) }}>
+    <Marker position={[cell.lat, cell.lon]} icon={clusterIcon(cell)} eventHandlers={{ click }}>
       <Tooltip>{`${cell.count} cases: ${(Object.entries(cell.byStatus) as [string, number][]).filter(([, n]) => n).map(([s, n]) => `${n} ${s}`).join(', ')}`}</Tooltip>
     </Marker>
   );

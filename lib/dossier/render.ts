@@ -11,10 +11,12 @@ export type DossierInput = {
   c: { reference: string; title: string; status: string; bands: string[]; createdAt: Date; outcome: string | null; levelBeforeDbm: number | null; levelAfterDbm: number | null; resolvedAt: Date | null; reportLevelDbm: number | null; frequencyKhz: number | null };
   /** the reporter's name only when they agreed to share it */
   reporterName: string | null;
+  /** the reporter's account, so that their own timeline entries are not signed with their name without consent */
+  reporterId: string | null;
   premises: { address: string; how: string } | null;
   bearings: ExportBearing[];
   fix: Fix | undefined;
-  events: { kind: string; actorName: string | null; createdAt: Date }[];
+  events: { kind: string; actorId: string | null; actorName: string | null; createdAt: Date }[];
   notices: { id: string; templateKey: string; status: string; postalAddress: string; sentAt: Date | null; deliveredOn: string | null }[];
   answers: { noticeId: string; kind: string; message: string; createdAt: Date }[];
 };
@@ -199,6 +201,7 @@ export async function renderDossier(d: DossierInput): Promise<Uint8Array> {
   }
 
   w.heading('Timeline');
-  for (const e of d.events) w.text(`${new Date(e.createdAt).toISOString().slice(0, 16).replace('T', ' ')}  ${e.kind}${e.actorName ? ` (${e.actorName})` : ''}`, { size: 9 });
+  const actor = (e: DossierInput['events'][number]) => (d.reporterName === null && e.actorId !== null && e.actorId === d.reporterId ? 'the reporter' : e.actorName);
+  for (const e of d.events) w.text(`${new Date(e.createdAt).toISOString().slice(0, 16).replace('T', ' ')}  ${e.kind}${actor(e) ? ` (${actor(e)})` : ''}`, { size: 9 });
   return doc.save();
 }

@@ -1,11 +1,13 @@
+import { NextResponse } from 'next/server';
 import tokml from 'tokml';
 import { stringify } from 'csv-stringify/sync';
 import type { Feature, FeatureCollection, Geometry } from 'geojson';
-import type { ExportCaseRow } from '@/db/exports';
+import type { ExportCaseRow, ExportLevelRow } from '@/db/exports';
+import type { NoiseEnvironment } from '@/lib/df';
+import { excessOverFloor } from '@/lib/levels/level-log';
+import { guardCsvText } from './csv-text';
+import type { ExportFormat } from '@/lib/validation/exports';
 import type { ExportBearing } from './case-geojson';
-
-export const EXPORT_FORMATS = ['geojson', 'kml', 'csv'] as const;
-export type ExportFormat = (typeof EXPORT_FORMATS)[number];
 
 export const CONTENT_TYPES: Record<ExportFormat, string> = {
   geojson: 'application/geo+json', // RFC 7946 §12
@@ -27,7 +29,7 @@ export const BEARING_CSV_COLUMNS = ['taken_at', 'lat', 'lon', 'azimuth_deg', 're
 /** A case's bearings as CSV (RFC 4180); the columns the bearings import reads back. */
 export function bearingsCsv(bearings: ExportBearing[]): string {
   return stringify(
-    bearings.map((b) => [new Date(b.takenAt).toISOString(), b.lat, b.lon, b.azimuthEnteredDeg, b.reference, b.azimuthTrueDeg, b.sigmaDeg, b.frequencyKhz ?? '', b.oneWay, b.excluded, b.authorName ?? '', b.note]),
+    bearings.map((b) => [new Date(b.takenAt).toISOString(), b.lat, b.lon, b.azimuthEnteredDeg, b.reference, b.azimuthTrueDeg, b.sigmaDeg, b.frequencyKhz ?? '', b.oneWay, b.excluded, guardCsvText(b.authorName), guardCsvText(b.note)]),
     { header: true, columns: [...BEARING_CSV_COLUMNS], cast: { boolean: (v) => String(v) } },
   );
 }
@@ -36,10 +38,43 @@ export const CASE_CSV_COLUMNS = ['reference', 'title', 'status', 'bands', 'creat
 
 export function caseCsvRows(rows: ExportCaseRow[], header: boolean): string {
   return stringify(
-    rows.map((r) => [r.reference, r.title, r.status, r.bands.join(' '), new Date(r.createdAt).toISOString(), new Date(r.lastActivityAt).toISOString(), r.assigneeName ?? '', r.lat ?? '', r.lon ?? '', r.fixSizeM ?? '', r.noticeCount, r.outcome ?? '', r.levelBeforeDbm ?? '', r.levelAfterDbm ?? '']),
+    rows.map((r) => [r.reference, guardCsvText(r.title), r.status, r.bands.join(' '), new Date(r.createdAt).toISOString(), new Date(r.lastActivityAt).toISOString(), guardCsvText(r.assigneeName), r.lat ?? '', r.lon ?? '', r.fixSizeM ?? '', r.noticeCount, r.outcome ?? '', r.levelBeforeDbm ?? '', r.levelAfterDbm ?? '']),
     { header, columns: [...CASE_CSV_COLUMNS] },
   );
 }
+
+/** The level log's CSV columns, units in the names (kHz, dBm, Hz, dB); taken_at is ISO 8601 UTC. */
+export const LEVEL_CSV_COLUMNS = ['taken_at', 'frequency_khz', 'level_dbm', 'bandwidth_hz', 'expected_dbm', 'excess_db', 'phase', 'lat', 'lon'] as const;
+
+/**
+ * Level-log readings as CSV rows (RFC 4180), each with the expected man-made noise in its
+ * bandwidth for the club's environment (ITU-R P.372, lib/levels) and the excess over it. A set
+ * export (`withCase`) starts each row with the case's reference.
+ */
+export function levelCsvRows(rows: ExportLevelRow[], o: { header: boolean; environment: NoiseEnvironment; withCase: boolean }): string {
+  return stringify(
+    rows.map((r) => {
+      const e = excessOverFloor(o.environment, r.frequencyKhz, r.bandwidthHz, r.levelDbm);
+      const cells = [new Date(r.takenAt).toISOString(), r.frequencyKhz, e.levelDbm, r.bandwidthHz, e.expectedDbm, e.excessDb, r.phase, r.lat ?? '', r.lon ?? ''];
+      return o.withCase ? [guardCsvText(r.caseReference), ...cells] : cells;
+    }),
+    { header: o.header, columns: o.withCase ? ['case_reference', ...LEVEL_CSV_COLUMNS] : [...LEVEL_CSV_COLUMNS] },
+  );
+}
+
+/** Level-log batches as CSV text chunks, the header first (alone when there are no readings). */
+export async function* levelCsvChunks(batches: AsyncGenerator<ExportLevelRow[]>, environment: NoiseEnvironment, withCase: boolean): AsyncGenerator<string> {
+  let header = true;
+  for await (const rows of batches) {
+    yield levelCsvRows(rows, { header, environment, withCase });
+    header = false;
+  }
+  if (header) yield levelCsvRows([], { header, environment, withCase });
+}
+
+/** A streamed CSV download. */
+export const csvDownload = (file: string, chunks: AsyncGenerator<string>) =>
+  new NextResponse(textStream(chunks), { headers: { 'content-type': CONTENT_TYPES.csv, 'content-disposition': `attachment; filename="${file}"`, 'cache-control': 'no-store' } });
 
 /** One case of a set export as a GeoJSON Point feature (no point without a position). */
 export function caseFeature(r: ExportCaseRow): Feature<Geometry> | null {

@@ -2,6 +2,7 @@ import { parse } from 'csv-parse/sync';
 import { bearingInputSchema } from '@/lib/validation/bearings';
 import { badRequest } from '@/lib/errors';
 import { trueAzimuth } from './bearing-math';
+import { unguardCsvText } from '@/lib/export/csv-text';
 
 /** Rows one import may hold. */
 export const IMPORT_MAX_ROWS = 500;
@@ -36,7 +37,7 @@ export function parseBearingsCsv(text: string): { rows: ImportRow[]; problems: I
     const line = i + 2; // the header is line 1
     const raw: Record<string, unknown> = { positionSource: 'map', accuracyConfirmed: true };
     for (const [col, key] of Object.entries(NUMBER_COLUMNS)) if (r[col]) raw[key] = Number(r[col]);
-    for (const [col, key] of Object.entries(TEXT_COLUMNS)) if (r[col]) raw[key] = r[col];
+    for (const [col, key] of Object.entries(TEXT_COLUMNS)) if (r[col]) raw[key] = unguardCsvText(r[col]);
     if (r.one_way) raw.oneWay = /^(true|yes|1)$/i.test(r.one_way);
     if (raw.positionAccuracyM !== undefined) raw.positionSource = 'device';
     if (typeof raw.takenAt === 'string' && !Number.isNaN(Date.parse(raw.takenAt))) raw.takenAt = new Date(raw.takenAt).toISOString();

@@ -36,8 +36,14 @@ export function expectedNoise(environment: NoiseEnvironment, frequencyKhz: numbe
   return { dbm: noisePowerDbm(info.famDb, bandwidthHz), warning: info.warning };
 }
 
+/** A reading against the expected floor: level, expected and excess, dBm / dB to 0.1 dB (the log's and the CSV's figures). */
+export function excessOverFloor(environment: NoiseEnvironment, frequencyKhz: number, bandwidthHz: number, levelDbm: number) {
+  const e = expectedNoise(environment, frequencyKhz, bandwidthHz);
+  return { levelDbm: round1(levelDbm), expectedDbm: round1(e.dbm), excessDb: round1(levelDbm - e.dbm), warning: e.warning };
+}
+
 export function toLevelView(r: LevelRow, environment: NoiseEnvironment): LevelView {
-  const e = expectedNoise(environment, r.frequencyKhz, r.bandwidthHz);
+  const e = excessOverFloor(environment, r.frequencyKhz, r.bandwidthHz, r.levelDbm);
   return {
     id: r.id,
     clientId: r.clientId,
@@ -48,9 +54,9 @@ export function toLevelView(r: LevelRow, environment: NoiseEnvironment): LevelVi
     lat: r.lat,
     lon: r.lon,
     phase: r.phase,
-    levelDbm: round1(r.levelDbm),
-    expectedDbm: round1(e.dbm),
-    excessDb: round1(r.levelDbm - e.dbm),
+    levelDbm: e.levelDbm,
+    expectedDbm: e.expectedDbm,
+    excessDb: e.excessDb,
     ...(e.warning ? { warning: e.warning } : {}),
   };
 }

@@ -43,7 +43,7 @@ export const ACCESS: Row[] = [
   { name: 'export a case', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/export?format=geojson`, expect: HUNT_READ, contentType: /application\/geo\+json/ },
   { name: 'export the filtered cases', method: 'GET', path: () => '/api/cases/export?format=csv&status=open', expect: COMMITTEE_READ, contentType: /text\/csv/ },
   { name: 'case dossier', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/dossier.pdf`, expect: COMMITTEE_READ, contentType: /application\/pdf/ },
-  { name: 'club export', method: 'GET', path: () => '/api/club/export', expect: ADMIN_ONLY, contentType: /application\/x-ndjson/ },
+  { name: 'club export', method: 'GET', path: () => '/api/club/export', expect: ADMIN_ONLY, contentType: /application\/zip/ },
   { name: 'club settings', method: 'GET', path: () => '/api/settings', expect: ADMIN_ONLY },
   { name: 'change club settings', method: 'PATCH', path: () => '/api/settings', body: () => ({}), expect: ADMIN_ONLY },
   { name: 'list users', method: 'GET', path: () => '/api/users', expect: ADMIN_ONLY },

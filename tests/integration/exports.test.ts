@@ -5,6 +5,8 @@ import { parse } from 'csv-parse/sync';
 import { booleanClockwise } from '@turf/turf';
 import { Geodesic } from 'geographiclib-geodesic';
 import { PDFDocument } from 'pdf-lib';
+import yauzl from 'yauzl';
+import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { db } from '@/db';
 import { api, BASE_URL, signIn, type Session } from '../support/http';
 import { noiseReport } from '../support/fixtures';
@@ -15,7 +17,7 @@ import { noiseReport } from '../support/fixtures';
  * §3.1.6; exterior rings counter-clockwise, the right-hand rule, §3.1.6, checked with Turf's
  * booleanClockwise; no "crs" member, §4), bearing lines against GeographicLib's geodesic
  * (Karney 2013), KML 2.2 read back by @tmcw/togeojson with @xmldom/xmldom, CSV (RFC 4180) read by
- * csv-parse and fed back through the import's dry run, the dossier opened by pdf-lib.
+ * csv-parse and fed back through the import's dry run, the dossier opened by pdf-lib and its page text read by PDF.js (Mozilla's reader, pdfjs-dist).
  */
 let coordinator: Session;
 let hunter: Session;
@@ -39,6 +41,30 @@ beforeAll(async () => {
   const a = await api(`/api/cases/${openId}`, { method: 'PATCH', session: coordinator, body: { version: filed.json.case.version, assigneeId: hunterId } });
   expect(a.status, a.text).toBe(200);
 });
+
+/** Every entry of a ZIP, read by yauzl (a reader apart from the writer, yazl), in the archive's order. */
+function unzip(buf: Buffer): Promise<Map<string, string>> {
+  return new Promise((resolve, reject) => {
+    yauzl.fromBuffer(buf, { lazyEntries: true }, (err, zip) => {
+      if (err || !zip) return reject(err);
+      const out = new Map<string, string>();
+      zip.on('entry', (entry: yauzl.Entry) => {
+        zip.openReadStream(entry, (e, stream) => {
+          if (e || !stream) return reject(e);
+          const chunks: Buffer[] = [];
+          stream.on('data', (c: Buffer) => chunks.push(c));
+          stream.on('end', () => {
+            out.set(entry.fileName, Buffer.concat(chunks).toString('utf8'));
+            zip.readEntry();
+          });
+        });
+      });
+      zip.on('end', () => resolve(out));
+      zip.on('error', reject);
+      zip.readEntry();
+    });
+  });
+}
 
 function checkPosition(p: unknown) {
   expect(Array.isArray(p) && p.length >= 2).toBe(true);
@@ -115,6 +141,101 @@ describe('one case as GeoJSON (RFC 7946)', () => {
   });
 });
 
+describe('level log as CSV (what=levels)', () => {
+  // Rec. ITU-R P.372, Table 1 (man-made noise, median): Fam = c − d·log10(f/MHz) dB above kT0b,
+  // written here from the Recommendation, not from lib/df; noise power in b Hz = Fam − 174 + 10·log10(b) dBm.
+  const P372: Record<string, [number, number]> = { city: [76.8, 27.7], residential: [72.5, 27.7], rural: [67.2, 27.7], 'quiet-rural': [53.6, 28.6] };
+  const floorDbm = (env: string, fKhz: number, bHz: number) => P372[env][0] - P372[env][1] * Math.log10(fKhz / 1000) - 174 + 10 * Math.log10(bHz);
+  const COLUMNS = ['taken_at', 'frequency_khz', 'level_dbm', 'bandwidth_hz', 'expected_dbm', 'excess_db', 'phase', 'lat', 'lon'];
+
+  beforeAll(async () => {
+    const t0 = Date.now() - 7_200_000;
+    const readings = [
+      { frequencyKhz: 3650, level: { unit: 'S', value: 8 }, bandwidthHz: 2400, takenAt: new Date(t0).toISOString(), phase: 'before', lat: -31.0502, lon: 129.7488 },
+      { frequencyKhz: 7100, level: { unit: 'dBm', value: -81.5 }, bandwidthHz: 500, takenAt: new Date(t0 + 60_000).toISOString(), phase: 'before' },
+      { frequencyKhz: 7100, level: { unit: 'S', value: 9, overS9Db: 10 }, bandwidthHz: 2400, takenAt: new Date(t0 + 120_000).toISOString(), phase: 'after' },
+    ];
+    for (const r of readings) expect((await api(`/api/cases/${openId}/levels`, { session: hunter, body: r })).status).toBe(201);
+  });
+
+  /** The same readings straight from case_levels, the test's own SQL. */
+  async function fromSql(where: string, bindings: unknown[]) {
+    const { rows } = await db.raw(
+      `SELECT c.reference, l.taken_at, l.frequency_khz, l.level_dbm, l.bandwidth_hz, l.phase, l.lat, l.lon
+         FROM case_levels l JOIN cases c ON c.id = l.case_id WHERE ${where} ORDER BY c.reference, l.taken_at, l.id`,
+      bindings as never[],
+    );
+    return rows as { reference: string; taken_at: Date; frequency_khz: number; level_dbm: number; bandwidth_hz: number; phase: string; lat: number | null; lon: number | null }[];
+  }
+
+  function expectSameReadings(csvRows: Record<string, string>[], sqlRows: Awaited<ReturnType<typeof fromSql>>, env: string) {
+    expect(csvRows).toHaveLength(sqlRows.length);
+    sqlRows.forEach((s, i) => {
+      const c = csvRows[i];
+      expect(c.taken_at).toBe(s.taken_at.toISOString()); // ISO 8601 UTC
+      expect(Number(c.frequency_khz)).toBe(s.frequency_khz);
+      expect(Number(c.bandwidth_hz)).toBe(s.bandwidth_hz);
+      expect(Number(c.level_dbm)).toBeCloseTo(s.level_dbm, 1);
+      const floor = floorDbm(env, s.frequency_khz, s.bandwidth_hz);
+      expect(Number(c.expected_dbm)).toBeCloseTo(floor, 1);
+      expect(Number(c.excess_db)).toBeCloseTo(s.level_dbm - floor, 1);
+      expect(c.phase).toBe(s.phase);
+      expect(c.lat === '' ? null : Number(c.lat)).toBe(s.lat);
+      expect(c.lon === '' ? null : Number(c.lon)).toBe(s.lon);
+    });
+  }
+
+  it('one case: every reading of the log, with units in the column names, read back by csv-parse equals the table', async () => {
+    const [{ noise_environment: env }] = (await db.raw('SELECT noise_environment FROM club_settings WHERE id = 1')).rows;
+    const res = await raw(`/api/cases/${openId}/export?format=csv&what=levels`, hunter);
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toMatch(/text\/csv/);
+    const text = await res.text();
+    expect(text.split('\n')[0].trim()).toBe(COLUMNS.join(','));
+    const rows = parse(text, { columns: true }) as Record<string, string>[];
+    const sql = await fromSql('l.case_id = ?', [openId]);
+    expect(sql.length).toBeGreaterThanOrEqual(3);
+    expectSameReadings(rows, sql, env);
+    // IARU Region 1 (Technical Recommendation R.1): S9 = −73 dBm below 30 MHz, so S9+10 dB = −63 dBm.
+    expect(rows.some((r) => r.phase === 'after' && Number(r.level_dbm) === -63)).toBe(true);
+    console.log(`[exports] levels CSV of one case: ${rows.length} rows, environment ${env}`);
+  });
+
+  it('the filtered set: each reading under its case reference, the same as SQL over the same cases', async () => {
+    const [{ noise_environment: env }] = (await db.raw('SELECT noise_environment FROM club_settings WHERE id = 1')).rows;
+    const res = await raw('/api/cases/export?format=csv&what=levels&q=Import%20target', coordinator);
+    expect(res.status).toBe(200);
+    const rows = parse(await res.text(), { columns: true }) as Record<string, string>[];
+    expect(Object.keys(rows[0])).toEqual(['case_reference', ...COLUMNS]);
+    const sql = await fromSql("(c.reference || ' ' || c.title || ' ' || c.description) ILIKE '%Import target%'", []);
+    expect(rows.map((r) => r.case_reference)).toEqual(sql.map((s) => s.reference));
+    expectSameReadings(rows, sql, env);
+  });
+
+  it('a table other than the default is CSV only; an unknown one is a 400; a member gets none', async () => {
+    expect((await raw(`/api/cases/${openId}/export?format=geojson&what=levels`, coordinator)).status).toBe(400);
+    expect((await raw(`/api/cases/${openId}/export?format=csv&what=passwords`, coordinator)).status).toBe(400);
+    expect((await raw('/api/cases/export?format=kml&what=levels', coordinator)).status).toBe(400);
+    expect((await raw(`/api/cases/${openId}/export?format=csv&what=levels`, await signIn('member@example.test'))).status).toBe(403); // members never see the hunt
+  });
+});
+
+describe('CSV injection (OWASP "CSV Injection": a cell starting with = + - @ is a formula to a spreadsheet)', () => {
+  it('free text that starts like a formula leaves with a leading apostrophe and comes back unchanged through the import', async () => {
+    const note = `=HYPERLINK("http://evil.example.test","x") ${Date.now()}`;
+    const csv = ['lat,lon,azimuth_deg,reference,sigma_deg,note', `-31.0495,129.7480,75,true,3,"${note.replace(/"/g, '""')}"`].join('\n');
+    expect((await api(`/api/cases/${openId}/bearings/import`, { session: hunter, body: csv, headers: { 'content-type': 'text/csv' } })).status).toBe(201);
+    const out = parse(await (await raw(`/api/cases/${openId}/export?format=csv`, hunter)).text(), { columns: true }) as Record<string, string>[];
+    const cell = out.find((r) => r.note.includes(String(note.split(' ').at(-1))))!.note;
+    expect(cell).toBe(`'${note}`);
+    expect(out.every((r) => !/^[=+\-@]/.test(r.note) && !/^[=+\-@]/.test(r.author))).toBe(true);
+    const title = `@SUM(1+1) formula title ${Date.now()}`;
+    expect((await api('/api/cases', { session: coordinator, body: noiseReport({ title }) })).status).toBe(201);
+    const set = parse(await (await raw(`/api/cases/export?format=csv&q=${encodeURIComponent('formula title')}`, coordinator)).text(), { columns: true }) as Record<string, string>[];
+    expect(set.find((r) => r.title.endsWith(title))!.title).toBe(`'${title}`);
+  });
+});
+
 describe('bearings import', () => {
   const count = async (id: string) => Number((await db('bearings').where({ case_id: id }).count<{ n: string }[]>({ n: '*' }))[0].n);
   const BAD = ['lat,lon,azimuth_deg,reference,sigma_deg', '-31.05,129.75,45,true,3', '95,129.75,45,true,3', '-31.05,129.75,abc,true,3', '-31.05,129.75,45,grid,3'].join('\n');
@@ -172,20 +293,54 @@ describe('set and club exports, streamed', () => {
     expect(csv.map((r) => r.reference)).toContain(locatedRef);
   });
 
-  it('the club export is JSON lines without password hashes', async () => {
+  it('the club export is a ZIP: one JSON-lines file per table, a manifest whose counts match SQL, no password anywhere; admins only', async () => {
     const res = await raw('/api/club/export', admin);
     expect(res.status).toBe(200);
-    const text = await res.text();
-    expect(text).not.toMatch(/password_hash|\$2[aby]\$/);
-    const lines = text.trim().split('\n').map((l) => JSON.parse(l));
-    expect(lines[0].format).toBe('quietfix-club-export');
-    const [{ n }] = (await db.raw('SELECT count(*)::int AS n FROM cases')).rows;
-    expect(lines.filter((l) => l.table === 'cases')).toHaveLength(n);
+    expect(res.headers.get('content-type')).toBe('application/zip');
+    expect(res.headers.get('content-length')).toBeNull(); // streamed, not a buffer of known size
+    const files = await unzip(Buffer.from(await res.arrayBuffer()));
+    const names = [...files.keys()];
+    expect(names.at(-1)).toBe('manifest.json');
+    const manifest = JSON.parse(files.get('manifest.json')!);
+    expect(manifest.format).toBe('quietfix-club-export');
+    expect(manifest.schemaVersion).toBeGreaterThanOrEqual(2);
+    expect(Math.abs(Date.parse(manifest.exportedAt) - Date.now())).toBeLessThan(60_000);
+    expect(Object.keys(manifest.files).sort()).toEqual(names.filter((n) => n !== 'manifest.json').sort());
+    for (const t of ['users', 'cases', 'bearings', 'case_levels', 'notices', 'notice_templates']) expect(names).toContain(`${t}.jsonl`);
+    for (const [file, { table, rows }] of Object.entries(manifest.files) as [string, { table: string; rows: number }][]) {
+      const lines = files.get(file)!.split('\n').filter(Boolean).map((l) => JSON.parse(l) as Record<string, unknown>);
+      const [{ n }] = (await db.raw('SELECT count(*)::int AS n FROM ??', [table])).rows; // the test's own count
+      expect(lines, file).toHaveLength(n);
+      expect(rows, file).toBe(n);
+      for (const row of lines) expect(Object.keys(row).filter((k) => /password|token|secret|hash/i.test(k)), file).toEqual([]);
+    }
+    const everything = [...files.values()].join('\n');
+    expect(everything).not.toMatch(/"password[^"]*"\s*:/i);
+    expect(everything).not.toMatch(/\$2[aby]\$\d\d\$/); // bcrypt's modular crypt format
+    const [{ n: cases }] = (await db.raw('SELECT count(*)::int AS n FROM cases')).rows;
+    console.log(`[exports] club zip: ${names.length} files, ${cases} cases, ${everything.length} characters of JSON lines`);
     expect((await raw('/api/club/export', coordinator)).status).toBe(403);
   });
 });
 
 describe('case dossier', () => {
+  /** The text of every page, as PDF.js (Mozilla's reference reader, a package apart from the writer pdf-lib) extracts it. */
+  async function pdfText(bytes: Uint8Array): Promise<string[]> {
+    const doc = await getDocument({ data: bytes, isEvalSupported: false, useSystemFonts: false, disableFontFace: true, verbosity: 0 }).promise;
+    const pages: string[] = [];
+    for (let i = 1; i <= doc.numPages; i++) {
+      const content = await (await doc.getPage(i)).getTextContent();
+      pages.push(content.items.map((it) => ('str' in it ? it.str : '')).join('\n'));
+    }
+    await doc.destroy();
+    return pages;
+  }
+  const dossier = async (id: string) => {
+    const res = await raw(`/api/cases/${id}/dossier.pdf`, coordinator);
+    expect(res.status).toBe(200);
+    return new Uint8Array(await res.arrayBuffer());
+  };
+
   it('is a PDF that opens and names the case; committee only', async () => {
     const res = await raw(`/api/cases/${locatedId}/dossier.pdf`, coordinator);
     expect(res.status).toBe(200);
@@ -195,6 +350,34 @@ describe('case dossier', () => {
     expect(pdf.getTitle()).toBe(`Case dossier ${locatedRef}`);
     expect(pdf.getSubject()).toContain(locatedRef);
     expect((await raw(`/api/cases/${locatedId}/dossier.pdf`, hunter)).status).toBe(403);
+  });
+
+  it('its pages read: the reference and title, one bearings row per bearing as in the table, the reporter withheld without consent', async () => {
+    const text = (await pdfText(await dossier(locatedId))).join('\n');
+    const { rows: [c] } = await db.raw('SELECT c.reference, c.title, c.consent_share_name, u.name AS reporter FROM cases c JOIN users u ON u.id = c.reporter_id WHERE c.id = ?', [locatedId]);
+    expect(text).toContain(`Case dossier ${c.reference}`);
+    expect(text).toContain(c.title);
+    const { rows: bearings } = await db.raw('SELECT lat, lon, azimuth_entered_deg, azimuth_true_deg, taken_at FROM bearings WHERE case_id = ? ORDER BY taken_at', [locatedId]);
+    expect(bearings.length).toBeGreaterThan(0);
+    expect(text).toContain(`Bearings (${bearings.length})`);
+    for (const b of bearings) {
+      for (const cell of [new Date(b.taken_at).toISOString().slice(0, 16).replace('T', ' '), Number(b.lat).toFixed(5), Number(b.lon).toFixed(5), `${Number(b.azimuth_true_deg).toFixed(1)}°`]) {
+        expect(text, cell).toContain(cell);
+      }
+    }
+    expect(c.consent_share_name).toBe(false);
+    expect(text).toContain('name withheld');
+    expect(text).not.toContain(c.reporter); // nowhere: not in the case part, not in the timeline
+  });
+
+  it('with the reporter\'s consent their name is printed', async () => {
+    const member = await signIn('member@example.test');
+    const filed = await api('/api/cases', { session: member, body: noiseReport({ title: `Consenting reporter ${Date.now()}`, consentShareName: true }) });
+    expect(filed.status, filed.text).toBe(201);
+    const { rows: [u] } = await db.raw("SELECT name FROM users WHERE email = 'member@example.test'");
+    const text = (await pdfText(await dossier(filed.json.case.id))).join('\n');
+    expect(text).toContain(`Reported by: ${u.name}`);
+    expect(text).not.toContain('name withheld');
   });
 });
 

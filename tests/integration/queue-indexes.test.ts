@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { db } from '@/db';
 import type { Knex } from 'knex';
-import { queueQueries } from '@/db/queue';
+import { applyQueueFilter, queueQueries } from '@/db/queue';
 import { caseMapQuery } from '@/db/case-map';
 import { statsQueries } from '@/db/stats';
 import { parseQueueFilter, parseQueueParams } from '@/lib/validation/queue';
@@ -46,6 +46,7 @@ describe('the measured queries use our indexes (EXPLAIN, no sequential scan of c
     ['oldest in state', 'status=open&sort=stateAge&dir=desc', /cases_queue_status_/],
     ['text search', 'q=house 42', /cases_search_trgm|cases_queue_last_activity_at/],
     ['a hunter\'s own list', '', /cases_queue_assignee_activity|cases_assignee_id_index/],
+    ['an area drawn on the map', 'area=129.74,-31.06;129.76,-31.06;129.75,-31.04', /cases_map_point_gist/],
   ];
   it.each(QUEUE)('%s', async (name, qs, indexes) => {
     const viewer = name.startsWith('a hunter') ? { ...coordinator, role: 'hunter' as const } : coordinator;
@@ -57,6 +58,13 @@ describe('the measured queries use our indexes (EXPLAIN, no sequential scan of c
   it('map', async () => {
     const q = caseMapQuery(coordinator, parseQueueFilter(new URLSearchParams()), { west: 129.7, south: -31.1, east: 129.8, north: -31.0 }, 13, false);
     await expectNoSeqScanOfCases(await plan(q), /cases_map_point_gist/);
+  });
+
+  it('an area drawn on the map is served by the GiST index on map_point', async () => {
+    // The filter alone (as the set export and the statistics apply it), without a sort that a b-tree could serve.
+    const ns = await plan(applyQueueFilter(db('cases as c'), coordinator, parseQueueFilter(new URLSearchParams('area=129.74,-31.06;129.76,-31.06;129.75,-31.04'))).select('c.id'));
+    await expectNoSeqScanOfCases(ns, /cases_map_point_gist/);
+    expect(ns.some((n) => n['Index Name'] === 'cases_map_point_gist')).toBe(true);
   });
 
   it('statistics', async () => {

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { db } from '@/db';
-import { api, signIn, type Session } from '../support/http';
+import { api, BASE_URL, signIn, type Session } from '../support/http';
 
 /**
  * The committee's queue against SQL written here, independently of db/queue.ts: every sort key in
@@ -127,6 +127,25 @@ describe('queue filters match SQL', () => {
     expect(await walk(`q=${TAG}&${query}`)).toEqual(expected);
   });
 
+  it('bad areas are a 400 that says what is wrong', async () => {
+    const many = Array.from({ length: 51 }, (_, k) => `${(129 + Math.cos((2 * Math.PI * k) / 51) / 100).toFixed(5)},${(-31 + Math.sin((2 * Math.PI * k) / 51) / 100).toFixed(5)}`).join(';');
+    const BAD: [string, RegExp][] = [
+      ['129.75,-31.05;129.76,-31.04;129.76,-31.05;129.75,-31.04', /crosses itself/], // a bow tie
+      ['129.75,-31.05;129.76,-31.04', /at least 3/],
+      [many, /at most 50/],
+      ['129.75,-95;129.76,-31.04;129.76,-31.05', /off the globe/],
+      ['129.75,-31.05;129.76,-31.04;129.77,-31.03', /no ground/], // three points on one line
+      ['129.75,abc;129.76,-31.04;129.76,-31.05', /not lon,lat/],
+      ['129.75,-31.05;129.76,-31.04;129.76,-31.04;129.76,-31.05', /twice in a row/],
+    ];
+    for (const [area, message] of BAD) {
+      const r = await api(`/api/cases?area=${encodeURIComponent(area)}`, { session: coordinator });
+      expect(r.status, area).toBe(400);
+      expect(r.json.issues[0].message, area).toMatch(message);
+      expect((await api(`/api/cases/map?bbox=129,-32,130,-30&zoom=10&area=${encodeURIComponent(area)}`, { session: coordinator })).status).toBe(400);
+    }
+  });
+
   it('the text search finds a reference, any case', async () => {
     const r = await api(`/api/cases?q=${`qt-${TAG}-01`.toUpperCase()}`, { session: coordinator });
     expect(r.json.items.map((i: { reference: string }) => i.reference).sort()).toEqual(Array.from({ length: 10 }, (_, k) => `QT-${TAG}-01${k}`));
@@ -144,6 +163,33 @@ describe('queue filters match SQL', () => {
     const expected = await ids(`SELECT id FROM cases WHERE ${where()} AND (assignee_id = ? OR reporter_id = ?) ORDER BY last_activity_at DESC, id DESC`, [hunterId, hunterId]);
     expect(expected.length).toBeGreaterThan(0);
     expect(await walk(`q=${TAG}`, hunter)).toEqual(expected);
+  });
+});
+
+describe('an area drawn on the map (a polygon) filters the queue, the map and the export like PostGIS ST_Contains in SQL written here', () => {
+  // Vertices fall between the grid's points (0.001° apart), so no case lies on an edge.
+  const SHAPES: [string, [number, number][]][] = [
+    ['a triangle', [[129.7497, -31.0503], [129.7553, -31.0503], [129.7497, -31.0417]]],
+    ['a concave notch', [[129.7495, -31.0505], [129.7555, -31.0505], [129.7555, -31.0405], [129.7525, -31.0455], [129.7495, -31.0405]]],
+    ['a closed ring given with its first point again', [[129.7515, -31.0485], [129.7545, -31.0485], [129.7545, -31.0445], [129.7515, -31.0445], [129.7515, -31.0485]]],
+  ];
+  it.each(SHAPES)('%s', async (_name, vertices) => {
+    const wkt = `POLYGON((${[...vertices, vertices[0]].map(([lon, lat]) => `${lon} ${lat}`).join(', ')}))`;
+    const expected = await ids(
+      `SELECT id FROM cases WHERE ${where()} AND ST_Contains(ST_GeomFromText(?, 4326), ST_SetSRID(ST_MakePoint(reported_lon, reported_lat), 4326)) ORDER BY last_activity_at DESC, id DESC`,
+      [wkt],
+    );
+    expect(expected.length).toBeGreaterThan(0);
+    expect(expected.length).toBeLessThan(N);
+    const area = encodeURIComponent(vertices.map(([lon, lat]) => `${lon},${lat}`).join(';'));
+    expect(await walk(`q=${TAG}&area=${area}`)).toEqual(expected);
+    const map = await api(`/api/cases/map?bbox=129.70,-31.10,129.80,-31.00&zoom=19&q=${TAG}&area=${area}`, { session: coordinator });
+    expect(map.status, map.text).toBe(200);
+    expect(map.json.cells.reduce((n: number, c: { count: number }) => n + c.count, 0)).toBe(expected.length);
+    const csv = await fetch(`${BASE_URL}/api/cases/export?format=csv&q=${TAG}&area=${area}`, { headers: { cookie: coordinator.cookie } });
+    const refs = (await csv.text()).trim().split('\n').slice(1).map((l) => l.split(',')[0]);
+    const expectedRefs = (await db.raw(`SELECT reference FROM cases WHERE id = ANY(?) ORDER BY reference`, [expected])).rows.map((r: { reference: string }) => r.reference);
+    expect(refs).toEqual(expectedRefs);
   });
 });
 

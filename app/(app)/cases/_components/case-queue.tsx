@@ -9,13 +9,13 @@ import type { QueuePage } from '@/db/queue';
 import type { MapCell } from '@/db/case-map';
 import { CASE_STATUSES } from '@/db/types';
 import { BANDS } from '@/lib/hunt/bands';
-import type { Bbox, QueueSort } from '@/lib/validation/queue';
+import { AREA_MAX_VERTICES, AREA_MIN_VERTICES, areaSchema, areaText, type QueueSort } from '@/lib/validation/queue';
 import { CasesOverviewMapClient } from '@/components/map/cases-overview-map-client';
 import { CasesMapLegend } from '@/components/map/cases-map-legend';
 import type { MapView } from '@/components/map/cases-overview-map';
 import { QueueTable, type QueueRow } from './queue-table';
 import { SavedViews } from './saved-views';
-import { FILTER_KEYS, bboxText, parseBbox, pick, withChanges } from './queue-params';
+import { FILTER_KEYS, bboxText, pick, withChanges } from './queue-params';
 
 type Person = { id: string; name: string };
 type Answer = Omit<QueuePage, 'items'> & { items: QueueRow[] };
@@ -41,11 +41,26 @@ export function CaseQueue(p: { committee: boolean; hunters: Person[]; saved: { i
   const filters = pick(sp, FILTER_KEYS).toString();
   const [view, setView] = useState<MapView | null>(null);
   const [heat, setHeat] = useState(false);
-  const [drawing, setDrawing] = useState(false);
+  /** the area's vertices ([lon, lat]) while one is being drawn */
+  const [draft, setDraft] = useState<[number, number][] | null>(null);
+  const [drawProblem, setDrawProblem] = useState<string | null>(null);
   const mapUrl = view ? `/api/cases/map?bbox=${bboxText(view.bbox)}&zoom=${view.zoom}${heat ? '&heat=1' : ''}${filters ? `&${filters}` : ''}` : null;
   const { data: map } = useSWR<{ cells: MapCell[]; cellDeg: number; truncated: boolean }>(mapUrl, fetchJson, { keepPreviousData: true });
-  const area = parseBbox(sp.get('area'));
-  const start = useMemo(() => (area ? { lat: (area.north + area.south) / 2, lon: (area.east + area.west) / 2, zoom: 13 } : p.mapStart ? { ...p.mapStart, zoom: 12 } : { lat: 20, lon: 0, zoom: 2 }), []); // eslint-disable-line react-hooks/exhaustive-deps
+  const parsedArea = areaSchema.safeParse(sp.get('area') ?? undefined);
+  const area = parsedArea.success ? parsedArea.data : undefined;
+  const start = useMemo(() => (area ? { ...areaMiddle(area.vertices), zoom: 13 } : p.mapStart ? { ...p.mapStart, zoom: 12 } : { lat: 20, lon: 0, zoom: 2 }), []); // eslint-disable-line react-hooks/exhaustive-deps
+
+  function addPoint(v: [number, number]) {
+    setDrawProblem(null);
+    setDraft((d) => (d && d.length < AREA_MAX_VERTICES ? [...d, v] : d));
+  }
+  function closeArea() {
+    const checked = areaSchema.safeParse(areaText({ vertices: draft ?? [] }));
+    if (!checked.success) return setDrawProblem(checked.error.issues[0].message);
+    setDraft(null);
+    setCursors([]);
+    set({ area: areaText(checked.data) });
+  }
 
   const sort = (data?.sort ?? sp.get('sort') ?? 'lastActivity') as QueueSort;
   const dir = (data?.dir ?? sp.get('dir') ?? 'desc') as 'asc' | 'desc';
@@ -96,10 +111,31 @@ export function CaseQueue(p: { committee: boolean; hunters: Person[]; saved: { i
       </form>
 
       <section aria-label="Map of cases" className="space-y-2">
-        <div className="flex flex-wrap items-center gap-2 text-sm">
-          <button type="button" className="btn-quiet" aria-pressed={drawing} onClick={() => setDrawing((d) => !d)}>
-            {drawing ? 'Click two corners on the map…' : 'Draw an area'}
-          </button>
+        <div className="flex flex-wrap items-center gap-2 text-sm" role="group" aria-label="Area on the map">
+          {draft === null ? (
+            <button type="button" className="btn-quiet min-h-11" onClick={() => { setDrawProblem(null); setDraft([]); }}>
+              {area ? 'Draw a new area' : 'Draw an area'}
+            </button>
+          ) : (
+            <>
+              <span role="status" data-testid="draw-status">
+                {draft.length < AREA_MIN_VERTICES ? `Tap the map for each corner (${draft.length} of at least ${AREA_MIN_VERTICES})` : `${draft.length} corners: close the area when done`}
+              </span>
+              <button type="button" className="btn-quiet min-h-11" disabled={!view || draft.length >= AREA_MAX_VERTICES} onClick={() => view && addPoint([(view.bbox.west + view.bbox.east) / 2, (view.bbox.south + view.bbox.north) / 2])}>
+                Add the map's centre
+              </button>
+              <button type="button" className="btn-quiet min-h-11" disabled={draft.length === 0} onClick={() => { setDrawProblem(null); setDraft(draft.slice(0, -1)); }}>
+                Undo last corner
+              </button>
+              <button type="button" className="btn-primary min-h-11" disabled={draft.length < AREA_MIN_VERTICES} onClick={closeArea}>
+                Close the area
+              </button>
+              <button type="button" className="btn-quiet min-h-11" onClick={() => { setDrawProblem(null); setDraft(null); }}>
+                Stop drawing
+              </button>
+            </>
+          )}
+          {drawProblem && <span role="alert" className="font-semibold text-alarm-600">{drawProblem}</span>}
           <label className="flex items-center gap-1.5">
             <input type="checkbox" checked={heat} onChange={(e) => setHeat(e.target.checked)} /> heat view of open cases
           </label>
@@ -110,13 +146,10 @@ export function CaseQueue(p: { committee: boolean; hunters: Person[]; saved: { i
           cellDeg={map?.cellDeg ?? 0}
           heat={heat}
           area={area}
-          drawing={drawing}
+          draft={draft}
           start={start}
           onView={setView}
-          onArea={(a: Bbox) => {
-            setDrawing(false);
-            set({ area: bboxText(a) });
-          }}
+          onDraftPoint={addPoint}
           onOpenCase={(id) => router.push(`/cases/${id}`)}
         />
         <CasesMapLegend heat={heat} />
@@ -189,6 +222,13 @@ export function CaseQueue(p: { committee: boolean; hunters: Person[]; saved: { i
       </nav>
     </div>
   );
+}
+
+/** The middle of the area's vertices (for where the map opens). */
+function areaMiddle(vertices: [number, number][]) {
+  const lons = vertices.map((v) => v[0]);
+  const lats = vertices.map((v) => v[1]);
+  return { lon: (Math.min(...lons) + Math.max(...lons)) / 2, lat: (Math.min(...lats) + Math.max(...lats)) / 2 };
 }
 
 function Select(p: { id: string; label: string; value: string; onChange: (v: string) => void; options: { value: string; label: string }[] }) {

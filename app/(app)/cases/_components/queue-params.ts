@@ -26,9 +26,3 @@ export function withChanges(sp: URLSearchParams, changes: Record<string, string 
 
 export const bboxText = (b: { west: number; south: number; east: number; north: number }) =>
   [b.west, b.south, b.east, b.north].map((x) => x.toFixed(5)).join(',');
-
-export function parseBbox(s: string | null) {
-  if (!s) return undefined;
-  const [west, south, east, north] = s.split(',').map(Number);
-  return [west, south, east, north].every(Number.isFinite) ? { west, south, east, north } : undefined;
-}

@@ -1,22 +1,28 @@
-import { z } from 'zod';
 import { NextResponse } from 'next/server';
 import { route } from '@/lib/api/handler';
+import { exportParamsSchema } from '@/lib/validation/exports';
 import { requireUser } from '@/lib/auth/session';
-import { exportCaseBatches } from '@/db/exports';
+import { exportCaseBatches, filteredLevelBatches } from '@/db/exports';
+import { getClubSettings } from '@/db/settings';
 import { parseQueueFilter } from '@/lib/validation/queue';
-import { caseCsvRows, caseFeature, CONTENT_TYPES, EXPORT_FORMATS, KML_TAIL, kmlHead, kmlPlacemarks, textStream } from '@/lib/export/formats';
+import { caseCsvRows, caseFeature, CONTENT_TYPES, csvDownload, KML_TAIL, kmlHead, kmlPlacemarks, levelCsvChunks, textStream } from '@/lib/export/formats';
 
-const formatSchema = z.object({ format: z.enum(EXPORT_FORMATS).default('geojson') });
+const formatSchema = exportParamsSchema(['cases', 'levels']);
 
 /**
  * The cases matching the queue's filters, streamed a thousand at a time: GeoJSON (a Point per case
- * with a position), KML, or CSV of the queue's columns. Committee only.
+ * with a position), KML, or CSV of the queue's columns (`what=cases`, the default) or of those
+ * cases' level logs (`what=levels`, a case_reference column first). Committee only.
  */
 export const GET = route(async (req) => {
   const me = await requireUser('admin', 'coordinator');
   const sp = req.nextUrl.searchParams;
-  const { format } = formatSchema.parse({ format: sp.get('format') ?? undefined });
+  const { format, what } = formatSchema.parse(Object.fromEntries(sp));
   const filter = parseQueueFilter(sp);
+  if (what === 'levels') {
+    const { noiseEnvironment: environment } = await getClubSettings();
+    return csvDownload('quietfix-levels.csv', levelCsvChunks(filteredLevelBatches(me, filter), environment, true));
+  }
   async function* chunks(): AsyncGenerator<string> {
     let first = true;
     if (format === 'geojson') yield '{"type":"FeatureCollection","features":[';

@@ -33,6 +33,7 @@ export const GET = route<{ id: string }>(async (_req, ctx) => {
     noiseEnvironment: settings.noiseEnvironment,
     c: { ...row, reportLevelDbm: report.levelDbm ?? null, frequencyKhz: report.frequenciesKhz?.[0] ?? bearings.find((b) => b.frequencyKhz)?.frequencyKhz ?? null },
     reporterName: people[0]?.name ?? null,
+    reporterId: row.reporterId,
     premises: premises ? { address: premises.address, how: premises.how } : null,
     bearings,
     fix: snapshot?.result,
