@@ -1,4 +1,7 @@
-import type { FileKind } from '@/db/files';
+import type { AudioAnalysis, FileKind } from '@/db/files';
+
+/** The signature fields of a recording that has none (yet). */
+export const NO_SIGNATURE = { mainsHz: null, mainsFamilyDb: null, pulseRateHz: null, broadband: false, hint: '' } as const satisfies Omit<AudioAnalysis, 'status'>;
 
 /**
  * What may be uploaded, decided from the content (file-type's sniffing), never the name or the
