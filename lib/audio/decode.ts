@@ -2,6 +2,7 @@ import CodecParser from 'codec-parser';
 import { OggVorbisDecoder } from '@wasm-audio-decoders/ogg-vorbis';
 import { MPEGDecoder } from 'mpg123-decoder';
 import { OggOpusDecoder } from 'ogg-opus-decoder';
+import { isAnalysable, notAnalysedMessage, type AnalysedFormat, type AnalysedMime } from './formats';
 import { MAX_RATE, MIN_RATE, mixToMono } from './pcm';
 import { AudioRefused, decodeWav } from './wav';
 
@@ -13,7 +14,7 @@ import { AudioRefused, decodeWav } from './wav';
  * the JS: nothing is fetched). M4A/AAC is kept but not decoded here (see DEVELOPERS.md).
  */
 export type DecodedRecording = {
-  format: 'WAV' | 'MP3' | 'Ogg Vorbis' | 'Ogg Opus';
+  format: AnalysedFormat;
   sampleRate: number;
   channels: number;
   samples: Float32Array;
@@ -27,7 +28,7 @@ export type DecodedRecording = {
 
 type Decoder = (bytes: Uint8Array, maxSeconds: number) => Promise<DecodedRecording>;
 
-const DECODERS: Record<string, Decoder> = {
+const DECODERS: Record<AnalysedMime, Decoder> = {
   'audio/wav': async (bytes, maxSeconds) => {
     const w = decodeWav(bytes, maxSeconds);
     return { format: 'WAV', sampleRate: w.sampleRate, channels: w.info.channels, samples: w.samples, seconds: w.info.seconds, truncatedTo: w.truncatedTo, notes: [] };
@@ -38,16 +39,9 @@ const DECODERS: Record<string, Decoder> = {
   'audio/opus': decodeOgg,
 };
 
-/** Whether recordings of this sniffed type get an audio signature. */
-export const isAnalysable = (mime: string): boolean => mime in DECODERS;
-
-/** What the case page says about a recording kept but not analysed. */
-export const notAnalysedMessage = (mime: string): string =>
-  `This recording (${mime === 'audio/mp4' || mime === 'audio/x-m4a' ? 'M4A/AAC' : mime}) is stored and can be played, but its format is not analysed here, so it has no audio signature. For one, upload it as WAV, MP3 or OGG (Vorbis or Opus).`;
-
 export async function decodeRecording(bytes: Uint8Array, mime: string, maxSeconds = 60): Promise<DecodedRecording> {
+  if (!isAnalysable(mime)) throw new AudioRefused(notAnalysedMessage(mime), 'not-analysed');
   const decode = DECODERS[mime];
-  if (!decode) throw new AudioRefused(notAnalysedMessage(mime), 'not-analysed');
   let out: DecodedRecording;
   try {
     out = await decode(bytes, maxSeconds);
@@ -85,19 +79,42 @@ async function finish<I>(format: DecodedRecording['format'], d: WasmDecoder<I>, 
 
 const totalBytes = (parts: Uint8Array[]) => parts.reduce((a, p) => a + p.length, 0);
 
+/** Bit rates in kbit/s by bitrate index, per MPEG version and layer (ISO/IEC 11172-3 §2.4.2.3, ISO/IEC 13818-3 §2.4.2.3; recalled, not re-read). */
+const KBPS = {
+  v1: { 1: [0, 32, 64, 96, 128, 160, 192, 224, 256, 288, 320, 352, 384, 416, 448], 2: [0, 32, 48, 56, 64, 80, 96, 112, 128, 160, 192, 224, 256, 320, 384], 3: [0, 32, 40, 48, 56, 64, 80, 96, 112, 128, 160, 192, 224, 256, 320] },
+  v2: { 1: [0, 32, 48, 56, 64, 80, 96, 112, 128, 144, 160, 176, 192, 224, 256], 2: [0, 8, 16, 24, 32, 40, 48, 56, 64, 80, 96, 112, 128, 144, 160], 3: [0, 8, 16, 24, 32, 40, 48, 56, 64, 80, 96, 112, 128, 144, 160] },
+} as const;
+const RATES = { 3: [44100, 48000, 32000], 2: [22050, 24000, 16000], 0: [11025, 12000, 8000] } as Record<number, number[]>;
+
+/**
+ * The length in bytes of the MPEG audio frame whose 4-byte header starts `h`, from the header
+ * alone (same standards): layer I (12·bitrate/rate + padding)·4, layer II and MPEG-1 layer III
+ * 144·bitrate/rate + padding, MPEG-2/2.5 layer III 72·bitrate/rate + padding. Null for no valid header.
+ * (codec-parser's own frame length is internal, and the bitrate it reports is the one measured.)
+ */
+export function mpegFrameLength(h: Uint8Array): number | null {
+  if (h.length < 4 || h[0] !== 0xff || (h[1] & 0xe0) !== 0xe0) return null;
+  const version = (h[1] >> 3) & 3; // 3 MPEG-1, 2 MPEG-2, 0 MPEG-2.5
+  const layer = 4 - ((h[1] >> 1) & 3); // bits 11 -> I, 10 -> II, 01 -> III
+  const kbps = version === 1 || layer === 4 ? undefined : KBPS[version === 3 ? 'v1' : 'v2'][layer as 1 | 2 | 3][h[2] >> 4];
+  const rate = RATES[version]?.[(h[2] >> 2) & 3];
+  if (!kbps || !rate) return null;
+  const pad = (h[2] >> 1) & 1;
+  if (layer === 1) return (Math.floor((12 * kbps * 1000) / rate) + pad) * 4;
+  return Math.floor(((layer === 3 && version !== 3 ? 72 : 144) * kbps * 1000) / rate) + pad;
+}
+
 /**
  * MP3 (and MPEG layer I/II): every frame is found by codec-parser; a last frame shorter than its
- * header's frame length (the formula codec-parser uses, from ISO/IEC 11172-3 §2.4.3.1 — recalled,
- * not re-read) means the file was cut off. Only the frames that start in the first `maxSeconds`
- * are decoded.
+ * header says (mpegFrameLength) means the file was cut off. Only the frames that start in the
+ * first `maxSeconds` are decoded.
  */
 async function decodeMpeg(bytes: Uint8Array, maxSeconds: number): Promise<DecodedRecording> {
   const frames = new CodecParser('audio/mpeg', { enableLogging: false }).parseAll(bytes) as unknown as MpegFrame[];
   if (!frames.length) throw new AudioRefused(`No MPEG audio frames were found in these ${bytes.length} bytes: the file is damaged or not an MP3.`, 'damaged');
   const last = frames[frames.length - 1];
-  const h = last.header;
-  const frameLength = Math.floor((125 * h.bitrate * last.samples) / h.sampleRate + h.framePadding);
-  if (last.data.length < frameLength)
+  const frameLength = mpegFrameLength(last.data);
+  if (frameLength !== null && last.data.length < frameLength)
     throw new AudioRefused(
       `The MP3 is truncated: its last frame (number ${frames.length}) has ${last.data.length} of its ${frameLength} bytes and the file ends at byte ${bytes.length}. Upload the whole recording.`,
       'damaged',
@@ -140,5 +157,5 @@ async function decodeOgg(bytes: Uint8Array, maxSeconds: number): Promise<Decoded
 }
 
 /** The fields used here of codec-parser's frames (its index.d.ts declares them but exports only the parser). */
-type MpegFrame = { data: Uint8Array; samples: number; duration: number; totalDuration: number; header: { bitrate: number; sampleRate: number; framePadding: number } };
+type MpegFrame = { data: Uint8Array; duration: number; totalDuration: number };
 type OggPage = { rawData: Uint8Array; duration: number; totalDuration: number };

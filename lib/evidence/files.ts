@@ -10,7 +10,7 @@ import type { User } from '@/db/types';
 import { AppError, forbidden, notFound, payloadTooLarge, unsupportedMediaType } from '@/lib/errors';
 import { fileAccess } from '@/lib/hunt/access';
 import { lockVisibleCase } from '@/lib/hunt/case-detail';
-import { isAnalysable, notAnalysedMessage } from '@/lib/audio/decode';
+import { isAnalysable, notAnalysedMessage } from '@/lib/audio/formats';
 import { AudioRefused, inspectWav } from '@/lib/audio/wav';
 import { JOB } from '@/lib/jobs/names';
 import { deleteObjects, objectSize, presignPut, readObject } from '@/lib/storage/s3';

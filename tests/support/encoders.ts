@@ -47,3 +47,19 @@ export function opusBytes(x: Float32Array, rate: number, kbps = 48): Uint8Array 
   e.destroy();
   return join(pages.map((p) => p.page));
 }
+
+/**
+ * Not a recording: an ISO BMFF 'ftyp' box with the M4A brand (ISO/IEC 14496-12 §4.3) and an empty
+ * 'mdat', enough for file-type to sniff audio/x-m4a. For the "stored but not analysed" path, where
+ * the content is never decoded (no npm package here encodes AAC).
+ */
+export function m4aHeaderOnly(): Uint8Array {
+  const box = (type: string, body: Uint8Array) => {
+    const b = new Uint8Array(8 + body.length);
+    new DataView(b.buffer).setUint32(0, b.length);
+    b.set(new TextEncoder().encode(type), 4);
+    b.set(body, 8);
+    return b;
+  };
+  return join([box('ftyp', new TextEncoder().encode('M4A \0\0\0\0M4A mp42isom')), box('mdat', new Uint8Array(64))]);
+}

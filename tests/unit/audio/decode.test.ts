@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { decodeRecording, isAnalysable } from '@/lib/audio/decode';
+import { decodeRecording, mpegFrameLength } from '@/lib/audio/decode';
+import { isAnalysable } from '@/lib/audio/formats';
 import { audioSignature } from '@/lib/audio/signature';
 import { AudioRefused } from '@/lib/audio/wav';
 import { mp3Bytes, opusBytes, vorbisBytes } from '../../support/encoders';
@@ -78,6 +79,19 @@ describe.each(CODECS)('$name recordings: decoded, then the same detections as th
 });
 
 describe('decoding limits and refusals', () => {
+  it('MPEG frame lengths from the header alone (values recalled from memory of the ISO/IEC 11172-3 formula, checked against LAME output below)', () => {
+    expect(mpegFrameLength(Uint8Array.of(0xff, 0xfb, 0x90, 0x00))).toBe(417); // MPEG-1 layer III, 128 kbit/s, 44.1 kHz
+    expect(mpegFrameLength(Uint8Array.of(0xff, 0xfb, 0x92, 0x00))).toBe(418); // the same, padded
+    expect(mpegFrameLength(Uint8Array.of(0xff, 0xe3, 0x88, 0xc4))).toBe(576); // MPEG-2.5 layer III, 64 kbit/s, 8 kHz
+    expect(mpegFrameLength(Uint8Array.of(0xff, 0xfb, 0xf0, 0x00))).toBeNull(); // bitrate index 15 is not allowed
+  });
+
+  it('a truncated MP3 names the frame and its full length (LAME: 64 kbit/s at 8 kHz is 576-byte frames)', async () => {
+    const whole = await mp3Bytes(whiteNoise(8000 * 3, 0.1, 6), 8000, 64);
+    await expect(decodeRecording(whole.slice(0, 10_001), 'audio/mpeg')).rejects.toThrow(/its last frame \(number 18\) has 209 of its 576 bytes and the file ends at byte 10001/);
+    await expect(decodeRecording(whole.slice(0, 9792), 'audio/mpeg')).resolves.toMatchObject({ format: 'MP3' }); // cut exactly after frame 17: a cut on a frame boundary cannot be told from a whole file
+  });
+
   it('decodes at most the first 60 s of a longer MP3, and says how long the whole is', async () => {
     const rate = 8000;
     const t = performance.now();
