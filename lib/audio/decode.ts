@@ -1,7 +1,4 @@
 import CodecParser from 'codec-parser';
-import { OggVorbisDecoder } from '@wasm-audio-decoders/ogg-vorbis';
-import { MPEGDecoder } from 'mpg123-decoder';
-import { OggOpusDecoder } from 'ogg-opus-decoder';
 import { isAnalysable, notAnalysedMessage, type AnalysedFormat, type AnalysedMime } from './formats';
 import { MAX_RATE, MIN_RATE, mixToMono } from './pcm';
 import { AudioRefused, decodeWav } from './wav';
@@ -11,7 +8,8 @@ import { AudioRefused, decodeWav } from './wav';
  * mono channel of PCM out (at most the first `maxSeconds`), or an AudioRefused saying why not.
  * WAV goes through wav.ts; MP3 (MPEG layer I/II/III) and Ogg (Vorbis, Opus) are split into frames
  * or pages by codec-parser and decoded by the wasm-audio-decoders family (their wasm is inside
- * the JS: nothing is fetched). M4A/AAC is kept but not decoded here (see DEVELOPERS.md).
+ * the JS: nothing is fetched), loaded on first use so that the worker starts as fast as before.
+ * M4A/AAC is kept but not decoded here (see DEVELOPERS.md).
  */
 export type DecodedRecording = {
   format: AnalysedFormat;
@@ -121,6 +119,7 @@ async function decodeMpeg(bytes: Uint8Array, maxSeconds: number): Promise<Decode
     );
   const take = frames.filter((f) => f.totalDuration < maxSeconds * 1000).map((f) => f.data);
   const seconds = (last.totalDuration + last.duration) / 1000;
+  const { MPEGDecoder } = await import('mpg123-decoder');
   const d = new MPEGDecoder();
   return finish('MP3', { ready: d.ready, free: () => d.free(), run: (x: Uint8Array[]) => d.decodeFrames(x) }, take, seconds, maxSeconds);
 }
@@ -146,10 +145,12 @@ async function decodeOgg(bytes: Uint8Array, maxSeconds: number): Promise<Decoded
   take.reduce((at, p) => (input.set(p, at), at + p.length), 0);
   const seconds = pages[pages.length - 1].totalDuration / 1000;
   if (codec === 'opus') {
+    const { OggOpusDecoder } = await import('ogg-opus-decoder');
     const d = new OggOpusDecoder();
     return finish('Ogg Opus', { ready: d.ready, free: () => d.free(), run: (x: Uint8Array) => d.decodeFile(x) }, input, seconds, maxSeconds);
   }
   if (codec === 'vorbis') {
+    const { OggVorbisDecoder } = await import('@wasm-audio-decoders/ogg-vorbis');
     const d = new OggVorbisDecoder();
     return finish('Ogg Vorbis', { ready: d.ready, free: () => d.free(), run: (x: Uint8Array) => d.decodeFile(x) }, input, seconds, maxSeconds);
   }

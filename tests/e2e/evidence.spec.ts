@@ -94,5 +94,7 @@ test('an MP3 gets a signature; an M4A says it is stored but not analysed', async
   const m4aItem = card.getByTestId('file-item').filter({ hasText: 'voice memo.m4a' });
   await expect(m4aItem.getByTestId('analysis-status')).toContainText('Not analysed:');
   await expect(m4aItem.getByTestId('analysis-status')).toContainText('upload it as WAV, MP3 or OGG');
+  await card.scrollIntoViewIfNeeded();
+  await card.screenshot({ path: `test-results/evidence/compressed-${test.info().project.name}.png` });
   await removeAttached(page, caseId, ['hum at the stile.mp3', 'voice memo.m4a']);
 });
