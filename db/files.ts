@@ -4,13 +4,14 @@ import { db } from './index';
 /** Evidence files on a case (migrations/20261202060000_case_files.ts). */
 export type FileKind = 'audio' | 'photo' | 'document';
 export type AudioAnalysis = {
-  status: 'queued' | 'ready' | 'refused' | 'failed';
+  /** refused: damaged or an unsupported variant; not-analysed: a format kept but never decoded (M4A) */
+  status: 'queued' | 'ready' | 'refused' | 'not-analysed' | 'failed';
   mainsHz: 50 | 60 | null;
   mainsFamilyDb: number | null;
   pulseRateHz: number | null;
   broadband: boolean;
   hint: string;
-  /** why it was refused or failed */
+  /** why it was refused, not analysed, or failed */
   message?: string;
 };
 export type CaseFile = {

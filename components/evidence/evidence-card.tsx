@@ -10,11 +10,22 @@ import { useUploads } from './use-uploads';
 
 const ACCEPT = 'audio/*,.wav,.mp3,.ogg,.opus,.m4a,image/jpeg,image/png,image/webp,application/pdf';
 
+const STATUS_WORDS: Record<Exclude<NonNullable<FileView['analysis']>['status'], 'queued' | 'ready'>, string> = {
+  refused: 'No signature:',
+  'not-analysed': 'Not analysed:',
+  failed: 'Analysis failed:',
+};
+
 function AnalysisLine({ f }: { f: FileView }) {
   const a = f.analysis;
   if (!a) return null;
   if (a.status === 'queued') return <p className="text-sm" role="status">Working out the audio signature…</p>;
-  if (a.status !== 'ready') return <p className="text-sm text-ink-faint">{a.message}</p>;
+  if (a.status !== 'ready')
+    return (
+      <p className="text-sm text-ink-soft" data-testid="analysis-status">
+        <strong>{STATUS_WORDS[a.status]}</strong> {a.message}
+      </p>
+    );
   return (
     <div className="space-y-1" data-testid="analysis">
       <p className="text-sm">
@@ -102,7 +113,10 @@ export function EvidenceCard({ caseId, canAdd }: { caseId: string; canAdd: boole
           </label>
         </div>
       )}
-      <p className="text-xs text-ink-faint">WAV recordings (PCM, 8–48 kHz) get an audio signature. Photos are shown to others without their location data.</p>
+      <p className="text-xs text-ink-faint">
+        Recordings in WAV (PCM, 8–48 kHz), MP3 or OGG (Vorbis, Opus) get an audio signature of their first 60 s; M4A is kept but not analysed.
+        Photos (JPEG, PNG, WebP) are shown to others without their location data.
+      </p>
       {uploads.length > 0 && (
         <ul className="space-y-2">
           {uploads.map((u) => (

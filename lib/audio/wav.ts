@@ -1,21 +1,29 @@
 import { decode } from 'wav-decoder';
+import { MAX_RATE, MIN_RATE, mixToMono } from './pcm';
 
 /**
  * Reading a WAV recording for the audio signature. Pure: bytes in, samples out, no I/O.
  * Accepted: RIFF/WAVE, PCM integer (8/16/24/32 bit) or IEEE float, 8–48 kHz, mono or stereo.
  * Anything else is refused with a message naming what and where (byte offsets from the file start).
  */
+/**
+ * Why a recording gets no signature: `damaged` (truncated, corrupt), `unsupported` (a variant
+ * outside what is analysed, e.g. 96 kHz or µ-law), `not-analysed` (a format kept but never decoded
+ * here, e.g. M4A/AAC).
+ */
+export type RefusalReason = 'damaged' | 'unsupported' | 'not-analysed';
+
 export class AudioRefused extends Error {
-  constructor(message: string) {
+  constructor(
+    message: string,
+    readonly reason: RefusalReason = 'unsupported',
+  ) {
     super(message);
     this.name = 'AudioRefused';
   }
 }
 
 export type WavInfo = { sampleRate: number; channels: number; bitsPerSample: number; format: 'pcm' | 'float'; dataOffset: number; dataBytes: number; seconds: number };
-
-const MIN_RATE = 8000;
-const MAX_RATE = 48000;
 
 const ascii = (b: Uint8Array, at: number) => String.fromCharCode(b[at], b[at + 1], b[at + 2], b[at + 3]);
 
@@ -34,7 +42,7 @@ export function inspectWav(bytes: Uint8Array, totalBytes = bytes.length): WavInf
     const size = view.getUint32(at + 4, true);
     const body = at + 8;
     if (id === 'fmt ') {
-      if (size < 16 || body + 16 > bytes.length) throw new AudioRefused(`The WAV "fmt " chunk at byte ${at} is cut short.`);
+      if (size < 16 || body + 16 > bytes.length) throw new AudioRefused(`The WAV "fmt " chunk at byte ${at} is cut short.`, 'damaged');
       const tag = view.getUint16(body, true);
       const channels = view.getUint16(body + 2, true);
       const sampleRate = view.getUint32(body + 4, true);
@@ -47,9 +55,9 @@ export function inspectWav(bytes: Uint8Array, totalBytes = bytes.length): WavInf
     } else if (id === 'data') {
       if (!fmt) throw new AudioRefused(`The WAV data chunk at byte ${at} comes before its "fmt " chunk.`);
       const available = totalBytes - body;
-      if (size > available) throw new AudioRefused(`The WAV is truncated: its data chunk at byte ${at} declares ${size} bytes but the file ends ${available} bytes later (at byte ${totalBytes}).`);
+      if (size > available) throw new AudioRefused(`The WAV is truncated: its data chunk at byte ${at} declares ${size} bytes but the file ends ${available} bytes later (at byte ${totalBytes}).`, 'damaged');
       const frame = (fmt.bitsPerSample / 8) * fmt.channels;
-      if (size < frame) throw new AudioRefused(`The WAV data chunk at byte ${at} holds no samples.`);
+      if (size < frame) throw new AudioRefused(`The WAV data chunk at byte ${at} holds no samples.`, 'damaged');
       return { ...fmt, dataOffset: body, dataBytes: size, seconds: size / frame / fmt.sampleRate };
     }
     at = body + size + (size % 2); // chunks are padded to an even length
@@ -65,10 +73,9 @@ export function decodeWav(bytes: Uint8Array, maxSeconds = 60): { info: WavInfo; 
   try {
     audio = decode.sync(bytes.slice(0, info.dataOffset + info.dataBytes).buffer);
   } catch (err) {
-    throw new AudioRefused(`The WAV could not be decoded: ${(err as Error).message}.`);
+    throw new AudioRefused(`The WAV could not be decoded: ${(err as Error).message}.`, 'damaged');
   }
   const n = Math.min(audio.channelData[0].length, Math.floor(maxSeconds * audio.sampleRate));
-  const samples = new Float32Array(n);
-  for (const ch of audio.channelData) for (let i = 0; i < n; i++) samples[i] += ch[i] / audio.channelData.length;
+  const samples = mixToMono(audio.channelData, n);
   return { info, sampleRate: audio.sampleRate, samples, truncatedTo: audio.channelData[0].length > n ? maxSeconds : null };
 }

@@ -10,11 +10,12 @@ import type { User } from '@/db/types';
 import { AppError, forbidden, notFound, payloadTooLarge, unsupportedMediaType } from '@/lib/errors';
 import { fileAccess } from '@/lib/hunt/access';
 import { lockVisibleCase } from '@/lib/hunt/case-detail';
+import { isAnalysable, notAnalysedMessage } from '@/lib/audio/formats';
 import { AudioRefused, inspectWav } from '@/lib/audio/wav';
 import { JOB } from '@/lib/jobs/names';
 import { deleteObjects, objectSize, presignPut, readObject } from '@/lib/storage/s3';
 import type { uploadRequestSchema } from '@/lib/validation/files';
-import { KIND_WORDS, kindOfDeclared, kindOfSniffed } from './types';
+import { KIND_WORDS, kindOfDeclared, kindOfSniffed, NO_SIGNATURE } from './types';
 
 /**
  * Evidence uploads: presign -> the browser PUTs the bytes to object storage -> complete, where
@@ -81,18 +82,8 @@ export async function completeUpload(trx: Knex.Transaction, me: User, caseId: st
         if (err instanceof AudioRefused) return refuse(trx, f, new AppError(422, `"${f.name}": ${err.message} It was deleted.`));
         throw err;
       }
-      analysis = { status: 'queued', mainsHz: null, mainsFamilyDb: null, pulseRateHz: null, broadband: false, hint: '' };
-    } else {
-      analysis = {
-        status: 'refused',
-        mainsHz: null,
-        mainsFamilyDb: null,
-        pulseRateHz: null,
-        broadband: false,
-        hint: '',
-        message: `${sniffed.mime} is kept as it is, but only WAV (PCM, 8–48 kHz) recordings get an audio signature here: export the recording as WAV for one.`,
-      };
     }
+    analysis = isAnalysable(sniffed.mime) ? { status: 'queued', ...NO_SIGNATURE } : { status: 'not-analysed', ...NO_SIGNATURE, message: notAnalysedMessage(sniffed.mime) };
   }
   await markFileReady(trx, f.id, { kind, contentType: sniffed.mime, analysis });
   if (analysis?.status === 'queued') await addJob(trx, JOB.analyseAudio, { fileId: f.id }, { jobKey: `audio:${f.id}`, maxAttempts: 3 });

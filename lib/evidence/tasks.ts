@@ -4,31 +4,38 @@ import sharp from 'sharp';
 import { db } from '@/db';
 import { getFileById, saveAnalysis, savePhotoCopies, takeStaleUploads, type AudioAnalysis } from '@/db/files';
 import { audioSignature } from '@/lib/audio/signature';
-import { AudioRefused, decodeWav } from '@/lib/audio/wav';
+import { decodeRecording } from '@/lib/audio/decode';
+import { AudioRefused } from '@/lib/audio/wav';
 import { JOB } from '@/lib/jobs/names';
 import { jobPayload } from '@/lib/jobs/tasks';
+import { NO_SIGNATURE } from './types';
 import { deleteObjects, putObject, readObject } from '@/lib/storage/s3';
 
-const empty = { mainsHz: null, mainsFamilyDb: null, pulseRateHz: null, broadband: false, hint: '' } as const;
 
-/** The audio signature of one uploaded WAV: decoded, analysed (lib/audio), stored on the file. */
+/**
+ * The audio signature of one uploaded recording (WAV, MP3, Ogg Vorbis/Opus): decoded
+ * (lib/audio/decode.ts, at most the first 60 s), analysed (lib/audio/signature.ts), stored on the
+ * file. A recording that cannot be decoded gets a status and a message, never a failed job loop.
+ */
 export async function analyseAudio(fileId: string, q: Knex = db, lastTry = true): Promise<AudioAnalysis['status'] | 'gone'> {
   const f = await getFileById(fileId, q);
   if (!f || f.status !== 'ready') return 'gone';
   try {
     const bytes = await readObject(f.objectKey);
-    const wav = decodeWav(bytes, 60);
-    const s = audioSignature(wav.samples, wav.sampleRate, 60);
+    const rec = await decodeRecording(bytes, f.contentType ?? '', 60);
+    const s = audioSignature(rec.samples, rec.sampleRate, 60);
     const { spectrum, spectrogram, ...figures } = s;
-    const hint = wav.truncatedTo ? `${s.hint} (The first ${wav.truncatedTo} s of ${wav.info.seconds.toFixed(0)} s were analysed.)` : s.hint;
+    const notes = [...(rec.truncatedTo ? [`The first ${rec.truncatedTo} s of ${rec.seconds.toFixed(0)} s were analysed.`] : []), ...rec.notes];
+    const hint = notes.length ? `${s.hint} (${notes.join(' ')})` : s.hint;
     await saveAnalysis(q, f.id, { status: 'ready', mainsHz: s.mainsHz, mainsFamilyDb: s.mainsFamilyDb, pulseRateHz: s.pulseRateHz, broadband: s.broadband, hint }, { ...figures, hint, spectrum, spectrogram });
     return 'ready';
   } catch (err) {
     if (err instanceof AudioRefused) {
-      await saveAnalysis(q, f.id, { status: 'refused', ...empty, message: err.message }, null);
-      return 'refused';
+      const status = err.reason === 'not-analysed' ? 'not-analysed' : 'refused';
+      await saveAnalysis(q, f.id, { status, ...NO_SIGNATURE, message: err.message }, null);
+      return status;
     }
-    if (lastTry) await saveAnalysis(q, f.id, { status: 'failed', ...empty, message: 'The analysis could not be run; the recording itself is kept.' }, null);
+    if (lastTry) await saveAnalysis(q, f.id, { status: 'failed', ...NO_SIGNATURE, message: 'The analysis could not be run; the recording itself is kept.' }, null);
     throw err;
   }
 }

@@ -1,9 +1,13 @@
-import type { FileKind } from '@/db/files';
+import type { AudioAnalysis, FileKind } from '@/db/files';
+
+/** The signature fields of a recording that has none (yet). */
+export const NO_SIGNATURE = { mainsHz: null, mainsFamilyDb: null, pulseRateHz: null, broadband: false, hint: '' } as const satisfies Omit<AudioAnalysis, 'status'>;
 
 /**
  * What may be uploaded, decided from the content (file-type's sniffing), never the name or the
- * browser's claim. HEIC is refused: no package here decodes it (sharp's prebuilt build has no
- * HEVC), so its location could not be stripped.
+ * browser's claim. HEIC is refused: sharp's prebuilt build has no HEVC; libheif-js (wasm) could
+ * decode it, but without an honest HEIC test input (no npm encoder, no shipped sample) the
+ * metadata-free copy could not be tested, so its location could leak (DEVELOPERS.md, Evidence).
  */
 const SNIFFED: Record<string, FileKind> = {
   'audio/wav': 'audio',

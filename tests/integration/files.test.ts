@@ -11,6 +11,7 @@ import { getUserByEmail } from '@/db/users';
 import { cleanStaleUploads } from '@/lib/evidence/tasks';
 import { objectSize, putObject } from '@/lib/storage/s3';
 import { api, signIn, waitFor, type Session } from '../support/http';
+import { m4aHeaderOnly, mp3Bytes, opusBytes } from '../support/encoders';
 import { harmonicFamily, mix, pulseTrain, wavBytes, whiteNoise } from '../support/signals';
 
 let hunter: Session;
@@ -51,6 +52,13 @@ async function nothingLeft(fileId: string) {
 
 const RATE = 8000;
 
+/** The file's answer once the signature job has run (or right away when nothing was queued). */
+const analysed = (fileId: string) =>
+  waitFor(async () => {
+    const r = await api(`/api/cases/${caseId}/files/${fileId}`, { session: member });
+    return r.json.file.analysis.status === 'queued' ? undefined : r.json;
+  }, 20_000);
+
 describe('uploading a recording', () => {
   it('presign -> PUT -> complete; the signature job finds the 50 Hz family', async () => {
     const wav = wavBytes(mix(harmonicFamily(RATE * 5, RATE, 50), whiteNoise(RATE * 5, 0.003, 2)), RATE);
@@ -59,10 +67,7 @@ describe('uploading a recording', () => {
     expect(s.complete.status, s.complete.text).toBe(200);
     expect(s.complete.json.file).toMatchObject({ kind: 'audio', contentType: 'audio/wav', analysis: { status: 'queued' }, can: { delete: true } });
     const t = Date.now();
-    const done = await waitFor(async () => {
-      const r = await api(`/api/cases/${caseId}/files/${s.ticket.fileId}`, { session: member });
-      return r.json.file.analysis.status === 'queued' ? undefined : r.json;
-    }, 20_000);
+    const done = await analysed(s.ticket.fileId);
     expect(done.file.analysis).toMatchObject({ status: 'ready', mainsHz: 50, pulseRateHz: null, broadband: false });
     expect(done.file.analysis.mainsFamilyDb).toBeGreaterThan(20);
     expect(done.file.analysis.hint).toMatch(/common practice/);
@@ -84,12 +89,57 @@ describe('uploading a recording', () => {
     const wav = wavBytes(mix(pulseTrain(rate * 4, rate, 40), whiteNoise(rate * 4, 0.003, 3)), rate, 2);
     const s = await upload(member, wav, 'ticking.wav', 'audio/x-wav');
     expect(s.complete.status, s.complete.text).toBe(200);
-    const a = await waitFor(async () => {
-      const r = await api(`/api/cases/${caseId}/files/${s.ticket.fileId}`, { session: member });
-      return r.json.file.analysis.status === 'queued' ? undefined : r.json.file.analysis;
-    }, 20_000);
+    const a = (await analysed(s.ticket.fileId)).file.analysis;
     expect(a.status).toBe('ready');
     expect(Math.abs(a.pulseRateHz - 40)).toBeLessThan(0.4);
+  });
+});
+
+// MP3 and Ogg Opus made at test time by LAME and libopus (tests/support/encoders.ts), decoded by
+// the worker (lib/audio/decode.ts); expected detections as for the WAV above (by construction).
+describe('uploading a compressed recording', () => {
+  it('an MP3 with a 50 Hz family: sniffed as audio/mpeg, the worker decodes it and finds 50 Hz', async () => {
+    const mp3 = await mp3Bytes(mix(harmonicFamily(RATE * 5, RATE, 50), whiteNoise(RATE * 5, 0.003, 2)), RATE, 64);
+    const s = await upload(hunter, mp3, 'hum at the gate.mp3', 'audio/mpeg');
+    expect(s.complete.status, s.complete.text).toBe(200);
+    expect(s.complete.json.file).toMatchObject({ kind: 'audio', contentType: 'audio/mpeg', analysis: { status: 'queued' } });
+    const t = Date.now();
+    const done = await analysed(s.ticket.fileId);
+    expect(done.file.analysis).toMatchObject({ status: 'ready', mainsHz: 50, pulseRateHz: null, broadband: false });
+    expect(done.file.analysis.mainsFamilyDb).toBeGreaterThan(20);
+    expect(done.signature.sampleRate).toBe(RATE);
+    expect(done.signature.seconds).toBeGreaterThan(4.9);
+    expect(done.signature.spectrogram.db.length).toBeGreaterThan(10);
+    console.log(`[files] ${(mp3.length / 1000).toFixed(0)} kB MP3 (5 s): signature ready ${Date.now() - t} ms after complete`);
+  });
+
+  it('an Ogg Opus with pulses at 40 Hz: decoded at 48 kHz, pulses at 40 Hz', async () => {
+    const ogg = opusBytes(mix(pulseTrain(RATE * 4, RATE, 40), whiteNoise(RATE * 4, 0.003, 3)), RATE, 64);
+    const s = await upload(member, ogg, 'ticking.opus', 'audio/ogg');
+    expect(s.complete.status, s.complete.text).toBe(200);
+    expect(s.complete.json.file.contentType).toBe('audio/ogg; codecs=opus');
+    const done = await analysed(s.ticket.fileId);
+    expect(done.file.analysis.status).toBe('ready');
+    expect(Math.abs(done.file.analysis.pulseRateHz - 40)).toBeLessThan(0.4);
+    expect(done.signature.sampleRate).toBe(48000);
+  });
+
+  it('a truncated MP3 is kept, and its analysis says plainly that it is cut off', async () => {
+    const whole = await mp3Bytes(whiteNoise(RATE * 3, 0.1, 6), RATE, 64);
+    const cut = whole.slice(0, 10_001);
+    const s = await upload(hunter, cut, 'cut.mp3', 'audio/mpeg');
+    expect(s.complete.status, s.complete.text).toBe(200);
+    const a = (await analysed(s.ticket.fileId)).file.analysis;
+    expect(a).toMatchObject({ status: 'refused', mainsHz: null });
+    expect(a.message).toMatch(/The MP3 is truncated: its last frame \(number \d+\) has \d+ of its 576 bytes and the file ends at byte 10001\. Upload the whole recording\./);
+  });
+
+  it('an M4A is stored but not analysed, and says so with the formats that are', async () => {
+    const m4a = m4aHeaderOnly(); // sniffed as audio/x-m4a, never decoded
+    const s = await upload(hunter, m4a, 'voice memo.m4a', 'audio/mp4');
+    expect(s.complete.status, s.complete.text).toBe(200);
+    expect(s.complete.json.file.analysis).toMatchObject({ status: 'not-analysed' });
+    expect(s.complete.json.file.analysis.message).toMatch(/M4A\/AAC\) is stored and can be played, but its format is not analysed here.*WAV, MP3 or OGG/);
   });
 });
 
