@@ -11,8 +11,8 @@ const MAX_FIT_ZOOM = 17;
  * Fits the view to `points` ([lat, lon] degrees): when they first appear, once more when
  * `complete` turns true (all data loaded) if the first fit came from partial data, and again
  * whenever `refitKey` changes (a line was added or removed). Plain refreshes never move the map
- * the hunter may have panned. A view the hunter chose (a drag, or a new `holdKey`: "show this
- * house") also cancels the pending fit for complete data, so late data never yanks the map away.
+ * the hunter may have panned. Once the hunter chose a view (a drag, or a new `holdKey`: "show this
+ * house"), the map no longer fits by itself: late data or a new line never yanks it away.
  */
 export function FitBoundsOnce({
   points,
@@ -26,24 +26,25 @@ export function FitBoundsOnce({
   holdKey?: string | null;
 }) {
   const map = useMap();
-  const state = useRef<'none' | 'partial' | 'full'>('none');
+  const state = useRef<'none' | 'partial' | 'full' | 'held'>('none');
   const lastKey = useRef(refitKey);
   const lastHold = useRef(holdKey);
   useMapEvents({
     dragstart: () => {
-      if (state.current === 'partial') state.current = 'full';
+      if (state.current !== 'none') state.current = 'held';
     },
   });
   useEffect(() => {
     if (holdKey !== lastHold.current) {
       lastHold.current = holdKey;
-      if (holdKey) state.current = 'full';
+      if (holdKey) state.current = 'held';
     }
     if (refitKey !== lastKey.current) {
       lastKey.current = refitKey;
       if (state.current === 'full') state.current = 'partial';
+      // 'held': the hunter chose this view; data arriving or lines added never take it away.
     }
-    if (points.length === 0 || state.current === 'full' || (state.current === 'partial' && !complete)) return;
+    if (points.length === 0 || state.current === 'full' || state.current === 'held' || (state.current === 'partial' && !complete)) return;
     const bounds = latLngBounds(points);
     if (points.length === 1 || bounds.getNorthEast().equals(bounds.getSouthWest())) map.setView(bounds.getCenter(), 16);
     else map.fitBounds(bounds, { padding: [28, 28], maxZoom: MAX_FIT_ZOOM });
