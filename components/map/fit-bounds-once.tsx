@@ -26,7 +26,8 @@ export function FitBoundsOnce({
   holdKey?: string | null;
 }) {
   const map = useMap();
-  const state = useRef<'none' | 'partial' | 'full' | 'held'>('none');
+  // A map (re)mounted with a focus already set shows that focus (FlyTo) and is held from the start.
+  const state = useRef<'none' | 'partial' | 'full' | 'held'>(holdKey ? 'held' : 'none');
   const lastKey = useRef(refitKey);
   const lastHold = useRef(holdKey);
   useMapEvents({

@@ -52,13 +52,15 @@ const peakIcon = L.divIcon({
 });
 
 /** A dark square with a white rim and an amber ring: unlike the round smoothed peak (and the reporter's diamond) at a glance, and in sunlight. */
-const strongestIcon = (source: TrailSource) =>
+const strongestIconOf = (source: TrailSource) =>
   L.divIcon({
     className: 'qf-trail-strongest',
     html: `<span data-testid="strongest-marker" data-source="${source}" style="display:block;width:20px;height:20px;margin:3px;background:#0f1d2b;border:3px solid #fff;box-shadow:0 0 0 2px #e0a526"></span>`,
     iconSize: [26, 26],
     iconAnchor: [13, 13],
   });
+/** Made once per source: a new icon on every render would make Leaflet redraw the marker each time. */
+const STRONGEST_ICONS: Record<TrailSource, L.DivIcon> = { walk: strongestIconOf('walk'), gpx: strongestIconOf('gpx') };
 
 /** The level in words as read and in dBm: "S8 (−79 dBm)". */
 export const strongestLevelWords = (s: StrongestReading) => (s.level.unit === 'dBm' ? `${Math.round(s.levelDbm * 10) / 10} dBm` : `${levelLabel(s.level)} (${Math.round(s.levelDbm)} dBm)`);
@@ -91,7 +93,7 @@ export function LevelTrailLayer({ source, points, peak, strongest, range, named 
         </Marker>
       )}
       {strongest && (
-        <Marker position={[strongest.lat, strongest.lon]} icon={strongestIcon(source)} title={`Strongest reading${suffix}: ${strongestLevelWords(strongest)}`} zIndexOffset={500}>
+        <Marker position={[strongest.lat, strongest.lon]} icon={STRONGEST_ICONS[source]} title={`Strongest reading${suffix}: ${strongestLevelWords(strongest)}`} zIndexOffset={500}>
           <Tooltip permanent direction="bottom" offset={[0, 14]}>
             strongest{suffix}
           </Tooltip>

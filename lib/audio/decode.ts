@@ -75,8 +75,6 @@ async function finish<I>(format: DecodedRecording['format'], d: WasmDecoder<I>, 
   return { format, sampleRate: r.sampleRate, channels: r.channelData.length, samples: mixToMono(r.channelData, n), seconds, truncatedTo: seconds > maxSeconds ? maxSeconds : null, notes };
 }
 
-const totalBytes = (parts: Uint8Array[]) => parts.reduce((a, p) => a + p.length, 0);
-
 /** Bit rates in kbit/s by bitrate index, per MPEG version and layer (ISO/IEC 11172-3 §2.4.2.3, ISO/IEC 13818-3 §2.4.2.3; recalled, not re-read). */
 const KBPS = {
   v1: { 1: [0, 32, 64, 96, 128, 160, 192, 224, 256, 288, 320, 352, 384, 416, 448], 2: [0, 32, 48, 56, 64, 80, 96, 112, 128, 160, 192, 224, 256, 320, 384], 3: [0, 32, 40, 48, 56, 64, 80, 96, 112, 128, 160, 192, 224, 256, 320] },
@@ -141,8 +139,7 @@ async function decodeOgg(bytes: Uint8Array, maxSeconds: number): Promise<Decoded
       'damaged',
     );
   const take = pages.filter((p) => p.totalDuration - p.duration < maxSeconds * 1000).map((p) => p.rawData);
-  const input = new Uint8Array(totalBytes(take));
-  take.reduce((at, p) => (input.set(p, at), at + p.length), 0);
+  const input: Uint8Array = Buffer.concat(take);
   const seconds = pages[pages.length - 1].totalDuration / 1000;
   if (codec === 'opus') {
     const { OggOpusDecoder } = await import('ogg-opus-decoder');

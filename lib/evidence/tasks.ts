@@ -11,7 +11,6 @@ import { jobPayload } from '@/lib/jobs/tasks';
 import { NO_SIGNATURE } from './types';
 import { deleteObjects, putObject, readObject } from '@/lib/storage/s3';
 
-
 /**
  * The audio signature of one uploaded recording (WAV, MP3, Ogg Vorbis/Opus): decoded
  * (lib/audio/decode.ts, at most the first 60 s), analysed (lib/audio/signature.ts), stored on the
