@@ -47,8 +47,11 @@ export function FitBoundsOnce({
     }
     if (points.length === 0 || state.current === 'full' || state.current === 'held' || (state.current === 'partial' && !complete)) return;
     const bounds = latLngBounds(points);
-    if (points.length === 1 || bounds.getNorthEast().equals(bounds.getSouthWest())) map.setView(bounds.getCenter(), 16);
-    else map.fitBounds(bounds, { padding: [28, 28], maxZoom: MAX_FIT_ZOOM });
+    // Never animated: a zoom animation still running when the next move comes (the hunter's "show
+    // this house", a fit for complete data) ends by putting the map back where it was heading,
+    // undoing that move (on a busy phone the animation's end can come seconds late).
+    if (points.length === 1 || bounds.getNorthEast().equals(bounds.getSouthWest())) map.setView(bounds.getCenter(), 16, { animate: false });
+    else map.fitBounds(bounds, { padding: [28, 28], maxZoom: MAX_FIT_ZOOM, animate: false });
     state.current = complete ? 'full' : 'partial';
   }, [map, points, complete, refitKey, holdKey]);
   return null;
