@@ -1,7 +1,10 @@
 /**
  * The bench's baseline: node:http + pg, no framework, no session check, running exactly the SQL the
- * app runs (built by the same db/ functions, executed here through a plain pg pool). Started by
- * scripts/bench-api.ts:  tsx scripts/bench-minimal-server.ts PORT VIEWER_ID
+ * app runs (built by the same db/ functions, executed here through a plain pg pool), with the app's
+ * caches: lists kept under the data revision (lib/cache/by-revision.ts), statistics for 30 s (lib/stats/memo.ts).
+ * With MINIMAL_CACHE=0 it keeps nothing and runs the lists' and statistics' SQL on every request
+ * (what the app would cost without its caches). Started by scripts/bench-api.ts:
+ *   tsx scripts/bench-minimal-server.ts PORT VIEWER_ID
  */
 import { createServer } from 'node:http';
 import pg from 'pg';
@@ -12,6 +15,8 @@ import { statsQueries } from '../db/stats';
 import { bboxSchema, parseQueueFilter, parseQueueParams } from '../lib/validation/queue';
 import { shapeStats } from '../lib/stats/shape';
 import { memo } from '../lib/stats/memo';
+import { revisionCache } from '../lib/cache/by-revision';
+import { revisionQuery } from '../db/revisions';
 
 const [port, viewerId] = [Number(process.argv[2]), process.argv[3]];
 const viewer = { id: viewerId, role: 'coordinator' as const };
@@ -27,7 +32,16 @@ const run = async (b: Knex.QueryBuilder) => {
   const { sql, bindings } = b.toSQL().toNative();
   return (await pool.query(sql, bindings as unknown[])).rows;
 };
-const stats = memo<unknown>(30_000);
+const caching = process.env.MINIMAL_CACHE !== '0';
+const kept = memo<object>(30_000);
+const stats = (key: string, compute: () => Promise<object>) => (caching ? kept(key, compute) : compute());
+const lists = revisionCache<object>();
+/** As lib/cache/case-lists.ts does it: one revision read, then the kept answer or the SQL. */
+const listed = async (kind: string, params: unknown, compute: () => Promise<object>) => {
+  if (!caching) return compute();
+  const [{ rev }] = await run(revisionQuery('cases'));
+  return lists(`${kind}\u0000${viewer.role}:${viewer.id}\u0000${JSON.stringify(params)}`, String(rev), compute);
+};
 
 createServer(async (req, res) => {
   try {
@@ -35,12 +49,16 @@ createServer(async (req, res) => {
     const sp = url.searchParams;
     let body: unknown;
     if (url.pathname === '/api/cases') {
-      const { rows, count } = queueQueries(viewer, parseQueueParams(sp));
-      const [items, [c]] = await Promise.all([run(rows), run(count)]);
-      body = { items, total: Number(c.n) };
+      const params = parseQueueParams(sp);
+      body = await listed('queue', params, async () => {
+        const { rows, count } = queueQueries(viewer, params);
+        const [items, [c]] = await Promise.all([run(rows), run(count)]);
+        return { items, total: Number(c.n) };
+      });
     } else if (url.pathname === '/api/cases/map') {
-      const rows = await run(caseMapQuery(viewer, parseQueueFilter(sp), bboxSchema.parse(sp.get('bbox')), Number(sp.get('zoom')), sp.get('heat') === '1'));
-      body = { cells: rows.map(toMapCell) };
+      const filter = parseQueueFilter(sp);
+      const p = { bbox: bboxSchema.parse(sp.get('bbox')), zoom: Number(sp.get('zoom')), heat: sp.get('heat') === '1' };
+      body = await listed('map', { filter, ...p }, async () => ({ cells: (await run(caseMapQuery(viewer, filter, p.bbox, p.zoom, p.heat))).map(toMapCell) }));
     } else if (url.pathname === '/api/stats') {
       const f = parseQueueFilter(sp);
       body = await stats(JSON.stringify(f), async () => {

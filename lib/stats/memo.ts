@@ -1,18 +1,18 @@
+import { LRUCache } from 'lru-cache';
+
 /**
- * A short-lived result cache with one computation in flight per key: many people opening the
- * statistics at once cost one set of aggregate queries every `ttlMs`. Per process (each app
- * instance keeps its own); the figures are at most `ttlMs` old.
+ * The statistics' cache: one set of aggregate queries per key every `ttlMs` however many people
+ * open the figures, with one computation in flight per key. Once an entry is older than `ttlMs`
+ * the next asker still gets it at once while one fresh computation runs in the background (so
+ * nobody waits for the aggregates after the first time); the figures are at most `ttlMs` plus one
+ * computation old. Per process (each app instance keeps its own). A failed refresh keeps nothing.
  */
-export function memo<T>(ttlMs: number, maxKeys = 200) {
-  const entries = new Map<string, { at: number; value: Promise<T> }>();
-  return (key: string, compute: () => Promise<T>): Promise<T> => {
-    const now = Date.now();
-    const hit = entries.get(key);
-    if (hit && now - hit.at < ttlMs) return hit.value;
-    if (entries.size >= maxKeys) entries.delete(entries.keys().next().value as string);
-    const value = compute();
-    entries.set(key, { at: now, value });
-    value.catch(() => entries.delete(key));
-    return value;
-  };
+export function memo<T extends object>(ttlMs: number, maxKeys = 200) {
+  const cache = new LRUCache<string, T, () => Promise<T>>({
+    max: maxKeys,
+    ttl: ttlMs,
+    allowStale: true,
+    fetchMethod: (_key, _stale, { context }) => context(),
+  });
+  return async (key: string, compute: () => Promise<T>): Promise<T> => (await cache.fetch(key, { context: compute })) as T;
 }

@@ -6,14 +6,17 @@ import { reportSchema } from '@/lib/validation/cases';
 import { parseQueueParams } from '@/lib/validation/queue';
 import { fileReport } from '@/lib/hunt/reports';
 import { toCaseDetail } from '@/lib/hunt/case-detail';
+import { cachedCaseList } from '@/lib/cache/case-lists';
 
 /**
  * Cases the caller may see, server-sorted and filtered (lib/validation/queue.ts): keyset pages through
  * `cursor` (answer's nextCursor), `?page=N` for links and scripts, and a total counted up to 10,000.
+ * Kept until a case changes (lib/cache/case-lists.ts).
  */
 export const GET = route(async (req) => {
   const me = await requireUser();
-  return json(await listQueue(me, parseQueueParams(req.nextUrl.searchParams)));
+  const params = parseQueueParams(req.nextUrl.searchParams);
+  return json(await cachedCaseList(me, 'queue', params, () => listQueue(me, params)));
 });
 
 /** Any signed-in person files a noise report; it becomes an open case. */

@@ -5,7 +5,7 @@ import { parseQueueFilter } from '@/lib/validation/queue';
 import { shapeStats, type Stats } from '@/lib/stats/shape';
 import { memo } from '@/lib/stats/memo';
 
-/** Committee figures for the cases matching the queue's filters, at most 30 seconds old. */
+/** Committee figures for the cases matching the queue's filters, at most 30 seconds old (plus one computation: older figures answer while fresh ones are worked out). */
 const STATS_TTL_MS = 30_000;
 const cached = memo<Stats>(STATS_TTL_MS);
 

@@ -3,6 +3,7 @@ import { route, json } from '@/lib/api/handler';
 import { requireUser } from '@/lib/auth/session';
 import { caseMap } from '@/db/case-map';
 import { bboxSchema, parseQueueFilter } from '@/lib/validation/queue';
+import { cachedCaseList } from '@/lib/cache/case-lists';
 
 const mapParams = z.object({
   bbox: bboxSchema,
@@ -10,10 +11,11 @@ const mapParams = z.object({
   heat: z.enum(['0', '1']).default('0'),
 });
 
-/** The map of all cases the caller may see: clusters and single cases in the box, with the queue's filters. */
+/** The map of all cases the caller may see: clusters and single cases in the box, with the queue's filters; kept until a case changes. */
 export const GET = route(async (req) => {
   const me = await requireUser();
   const sp = req.nextUrl.searchParams;
   const p = mapParams.parse({ bbox: sp.get('bbox') ?? undefined, zoom: sp.get('zoom') ?? undefined, heat: sp.get('heat') ?? undefined });
-  return json(await caseMap(me, parseQueueFilter(sp), p.bbox, p.zoom, p.heat === '1'));
+  const filter = parseQueueFilter(sp);
+  return json(await cachedCaseList(me, 'map', { filter, ...p }, () => caseMap(me, filter, p.bbox, p.zoom, p.heat === '1')));
 });
