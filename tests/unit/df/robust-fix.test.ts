@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { Geodesic } from 'geographiclib-geodesic';
 import { estimateFix, type LineOfBearing } from '@/lib/df';
 import { prepareLine } from '@/lib/df/internal/prepare-lines';
+import { chiSquareUpper } from '@/lib/df/internal/statistics';
 import { solveLines } from '@/lib/df/internal/solve-lines';
 import { covers } from './support/covers';
 import { distanceM, gaussian, mulberry32, sceneLines, type Spot } from './support/scene';
@@ -98,6 +99,33 @@ describe('a reflected bearing is set aside from the main fix (Lenth 1981; Stansf
       console.log(`[df] clean ${n} lines: false flags ${(flagged / 1.5).toFixed(1)} %`);
       expect(flagged / 150).toBeLessThan(0.04);
     }
+  });
+});
+
+describe('a line set aside never switches off the disagreement of the rest (Stansfield 1947 variance factor)', { timeout: 30_000 }, () => {
+  it('kept lines whose chi-square passes its 95 % quantile: lines-disagree beside lines-set-aside, ellipse widened', () => {
+    // bearing errors twice the stated sigma (sigmas too optimistic) plus one 60-degree reflection
+    const rand = mulberry32(31);
+    const noise = gaussian(rand);
+    let aside = 0, both = 0;
+    for (const n of [8, 20]) {
+      for (let k = 0; k < 60; k++) {
+        const lines = sceneLines(SOURCE, ring(n, rand), () => 2 * noise());
+        lines[2].azimuthDeg += 60;
+        const fix = estimateFix(lines);
+        if (!fix.ok || fix.outlierIds.length === 0) continue;
+        aside++;
+        const kept = fix.residuals.filter((r) => !r.setAside);
+        const chi2 = kept.reduce((c, r) => c + r.sigmas ** 2, 0);
+        const dof = kept.length - 2;
+        if (chi2 <= chiSquareUpper(0.05, dof)) continue;
+        both++;
+        expect(fix.notices.map((x) => x.code)).toEqual(expect.arrayContaining(['lines-set-aside', 'lines-disagree']));
+        expect(fix.varianceFactor).toBeCloseTo(chi2 / dof, 1);
+      }
+    }
+    console.log(`[df] lines set aside in ${aside} fixes, the rest still disagreeing (and said so) in ${both}`);
+    expect(both).toBeGreaterThan(20);
   });
 });
 
