@@ -9,7 +9,8 @@ import { expect, test, type Browser } from '@playwright/test';
 import { signInPage } from '../support/sign-in-page';
 import { api, signIn } from '../support/http';
 import { noiseReport } from '../support/fixtures';
-import { geodesicDirect, geodesicInverse } from '../../lib/df/internal/geodesy';
+// GeographicLib's Direct/Inverse (the reference library itself, not lib/df's internals).
+import { geodesicDirect, geodesicInverse } from '../support/geodesic';
 
 const SOURCE = { lat: -31.655, lon: 129.31 };
 /** An observer rangeM from the source, bearing toward it (rounded to 0.1 degree) plus bendDeg. */
