@@ -7,17 +7,7 @@
 import { expect, test, type Browser, type Page } from '@playwright/test';
 import { signInPage } from '../support/sign-in-page';
 // GeographicLib's Direct/Inverse (the reference library itself, not lib/df's internals).
-import geographiclib from 'geographiclib-geodesic';
-
-const WGS84 = geographiclib.Geodesic.WGS84;
-const geodesicDirect = (lat: number, lon: number, azi: number, s: number) => {
-  const r = WGS84.Direct(lat, lon, azi, s);
-  return { lat: r.lat2!, lon: r.lon2! };
-};
-const geodesicInverse = (lat1: number, lon1: number, lat2: number, lon2: number) => {
-  const r = WGS84.Inverse(lat1, lon1, lat2, lon2);
-  return { azi1: r.azi1!, s12: r.s12! };
-};
+import { geodesicDirect, geodesicInverse } from '../support/geodesic';
 
 const SOURCE = { lat: -31.62, lon: 129.12 };
 const SPOTS = [10, 130, 250].map((fromSource, i) => {

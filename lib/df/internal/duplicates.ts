@@ -1,8 +1,9 @@
 /**
  * The same bearing entered twice is one measurement, not two: lines from within SAME_SPOT_M of
  * each other whose directions differ by less than SAME_DIRECTION_SIGMAS of the smaller sigma
- * are grouped and counted once (the first of each group stands for it, with the group's
- * smallest sigma). Common practice, no source: the thresholds are this project's choice.
+ * are grouped and counted once (estimateFix keeps the group's sharpest line, ties broken by
+ * position, so the input order never matters). Common practice, no source: the thresholds are
+ * this project's choice.
  */
 import { DEG, bearingResidualDeg } from './angles';
 import type { Plane } from './plane';

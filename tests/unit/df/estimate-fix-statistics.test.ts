@@ -39,6 +39,7 @@ describe('95 % ellipse is honest under Gaussian bearing noise (seeded Monte Carl
         if (fix.ok && insideEllipse(fix, fix.ellipse, SOURCE)) inside++;
       }
       const rate = inside / TRIALS;
+      console.log(`[df] clean data, ${name}: 95 % ellipse covers ${(rate * 100).toFixed(1)} % of ${TRIALS}`);
       expect(rate).toBeGreaterThanOrEqual(0.93);
       expect(rate).toBeLessThanOrEqual(0.97);
     });
@@ -85,6 +86,7 @@ describe('outliers', () => {
       const fix = estimateFix(sceneLines(SOURCE, ten, noise));
       if (fix.ok && fix.outlierIds.length > 0) flagged++;
     }
+    console.log(`[df] clean 10 lines: false flags ${(flagged / trials * 100).toFixed(1)} % of ${trials}`);
     expect(flagged / trials).toBeLessThan(0.05);
   });
 

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { estimateFix, nearFieldRadiusM, suggestNextSpots } from '@/lib/df';
 import { Geodesic } from 'geographiclib-geodesic';
+import { booleanPointInPolygon, point, polygon } from '@turf/turf';
 import { distanceM, gaussian, insideEllipse, mulberry32, sceneLines } from './support/scene';
 
 // Seeded simulation, GeographicLib truth (Karney 2013); invented scenes on open sea. A new
@@ -38,25 +39,33 @@ describe('suggestNextSpots: spots a hunter can follow', { timeout: 30_000 }, () 
   it('keeps its distance: max(1.5 x semi-major, 3 x lambda / 2 pi, 50 m), outside the ellipse, no mirror pairs', () => {
     const rand = mulberry32(910);
     const noise = gaussian(rand);
-    let checked = 0;
+    let checked = 0, suggested = 0, innermost = 0, inRegion = 0, mirrors = 0, regions = 0;
     for (let t = 0; t < 40; t++) {
       const lines = sceneLines(SOURCE, [{ fromSourceAzDeg: 360 * rand(), rangeM: 300 + 900 * rand() }, { fromSourceAzDeg: 360 * rand(), rangeM: 300 + 900 * rand() }, { fromSourceAzDeg: 360 * rand(), rangeM: 300 + 900 * rand() }], noise);
       const fix = estimateFix(lines);
       if (!fix.ok) continue;
       const frequencyHz = t % 2 ? 137e3 : 7e6; // 137 kHz: lambda / 2 pi = 348 m (c / 2 pi f)
       const spots = suggestNextSpots(lines, { count: 3, frequencyHz });
+      if (fix.region) regions++;
       const min = Math.max(1.5 * fix.ellipse.semiMajorM, 3 * nearFieldRadiusM(frequencyHz), 50);
       expect(spots).toHaveLength(3);
       for (const s of spots) {
+        suggested++;
         expect(distanceM(s, fix)).toBeGreaterThanOrEqual(min * 0.999);
         expect(insideEllipse(fix, fix.ellipse, s)).toBe(false);
+        // nor inside the likelihood region, when the map draws that instead of the ellipse
+        if (fix.region && booleanPointInPolygon(point([s.lon, s.lat]), polygon([fix.region]))) inRegion++;
+        if (distanceM(s, fix) < min * 1.01) innermost++;
       }
       for (let i = 0; i < spots.length; i++) for (let j = i + 1; j < spots.length; j++) {
         const d = Math.abs(((azimuth(fix, spots[i]) - azimuth(fix, spots[j]) + 540) % 360) - 180);
+        if (Math.min(d, 180 - d) < 10) mirrors++;
         expect(Math.min(d, 180 - d)).toBeGreaterThanOrEqual(29); // different lines through the fix, not mirrors
       }
       checked++;
     }
+    console.log(`[df] next spots: ${suggested} suggestions in ${checked} sets; inside the ellipse 0, inside the region ${inRegion} (${regions} sets with a region), on the nearest allowed ring ${(innermost / suggested * 100).toFixed(0)} % (the floor max(1.5 a, 3 lambda / 2 pi, 50 m), was a fixed 100 m), mirror pairs ${mirrors} (was 292 of 292)`);
+    expect(inRegion).toBe(0);
     expect(checked).toBeGreaterThan(25);
     expect(nearFieldRadiusM(137e3)).toBeCloseTo(348.3, 1);
   });
@@ -66,6 +75,12 @@ describe('suggestNextSpots: spots a hunter can follow', { timeout: 30_000 }, () 
     const from = lines[1];
     const spots = suggestNextSpots(lines, { count: 2, from, maxWalkM: 400 });
     expect(spots.length).toBeGreaterThan(0);
+    // the nearest allowed ring around the fix lies out of reach here: the spots are farther out
+    const fix = estimateFix(lines);
+    expect(fix.ok).toBe(true);
+    if (!fix.ok) return;
+    const floor = Math.max(1.5 * fix.ellipse.semiMajorM, 50);
+    for (const s of spots) expect(s.distanceFromFixM).toBeGreaterThan(1.5 * floor);
     for (const s of spots) expect(s.walkM).toBeCloseTo(distanceM(s, from), 0);
     for (const s of spots) expect(s.walkM!).toBeLessThanOrEqual(400.5);
   });
