@@ -87,11 +87,17 @@ export async function countPlaces(source?: string, q: Knex = db): Promise<{ buil
 
 /**
  * Streets and buildings whose geometry meets the box (WGS84 degrees), streets first, at most `limit`.
- * @returns the features and whether more were there than the limit
+ * @returns the features, whether more were there than the limit, and whether any of them came
+ *   from OpenStreetMap (an OSM export, or a GeoJSON file with OSM ids), whose licence asks for attribution
  */
-export async function placesInBox(box: { west: number; south: number; east: number; north: number }, limit: number, q: Knex = db): Promise<{ features: PlaceFeature[]; truncated: boolean }> {
-  const { rows } = await q.raw<{ rows: (Omit<PlaceFeature['properties'], 'address'> & { id: string; city: string | null; geometry: Geometry })[] }>(
-    `select id, kind, name, housenumber, street, postcode, city, ST_AsGeoJSON(geom, 7)::json as geometry
+export async function placesInBox(
+  box: { west: number; south: number; east: number; north: number },
+  limit: number,
+  q: Knex = db,
+): Promise<{ features: PlaceFeature[]; truncated: boolean; fromOsm: boolean }> {
+  const { rows } = await q.raw<{ rows: (Omit<PlaceFeature['properties'], 'address'> & { id: string; city: string | null; geometry: Geometry; osm: boolean })[] }>(
+    `select id, kind, name, housenumber, street, postcode, city, ST_AsGeoJSON(geom, 7)::json as geometry,
+            (source = 'osm' or source_id ~ '^(node|way|relation)/[0-9]+$') as osm
        from places
       where geom && ST_MakeEnvelope(?, ?, ?, ?, 4326)
       order by kind = 'building', id
@@ -104,7 +110,7 @@ export async function placesInBox(box: { west: number; south: number; east: numb
     geometry: r.geometry,
     properties: { kind: r.kind, name: r.name, housenumber: r.housenumber, street: r.street, postcode: r.postcode, address: r.kind === 'building' ? placeAddress(r) : null },
   }));
-  return { features, truncated: rows.length > limit };
+  return { features, truncated: rows.length > limit, fromOsm: rows.slice(0, limit).some((r) => r.osm) };
 }
 
 export async function getPlace(id: string, q: Knex = db): Promise<{ id: string; kind: PlaceKind; address: string | null; lat: number; lon: number } | undefined> {

@@ -12,6 +12,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { db, inTransaction } from '@/db';
 import { countPlaces } from '@/db/places';
 import { importPlaceFile } from '@/lib/places/import-places';
+import { api, signIn } from '../support/http';
 
 const run = promisify(execFile);
 const SOURCE = `test-import-${process.pid}`;
@@ -156,6 +157,20 @@ describe('places:import with OpenStreetMap XML', () => {
     const again = await cli(p);
     expect(again.out).toMatch(/0 new, 3 updated/);
     expect(await countPlaces('osm')).toEqual({ buildings: 2, streets: 1, numbered: 2 });
+  });
+
+  it('the map answer credits OpenStreetMap for its data (ODbL), and only where OSM data is drawn', async () => {
+    // The OSM Foundation's copyright page asks for "© OpenStreetMap contributors" on maps made from the data.
+    const hunter = await signIn('hunter@example.test');
+    const box = (lon: number, lat: number) => `${lon - 0.001},${lat - 0.001},${lon + 0.001},${lat + 0.001}`;
+    const osm = await api(`/api/places?bbox=${box(LON0, LAT0 + 0.002)}`, { session: hunter });
+    expect(osm.status, osm.text).toBe(200);
+    expect(osm.json.features.some((f: { properties: { street: string } }) => f.properties.street === 'Test Brindle Walk')).toBe(true);
+    expect(osm.json.attribution).toEqual([expect.stringMatching(/&copy; <a href="https:\/\/www\.openstreetmap\.org\/copyright">OpenStreetMap<\/a> contributors/)]);
+    // The GeoJSON town of our own (no OSM ids) a little further south: nothing to credit.
+    const own = await api(`/api/places?bbox=${box(LON0 + 0.002, LAT0)}`, { session: hunter });
+    expect(own.json.features.some((f: { properties: { street: string } }) => f.properties.street === 'Test Wharrow Lane')).toBe(true);
+    expect(own.json.attribution).toEqual([]);
   });
 
   it('names the line of an XML error and of a way with a missing node, importing nothing', async () => {
