@@ -129,13 +129,14 @@ export type CandidateRow = { placeId: string; address: string | null; lat: numbe
  * Buildings meeting the region (a GeoJSON polygon) or within `marginM` metres of it, ordered by
  * the Mahalanobis distance of the footprint's nearest point (0 when the footprint holds the
  * centre), then of its centroid; at most `limit`.
+ * @returns those rows, and how many buildings meet the region in all (the limit aside)
  */
 export async function buildingsNearRegion(
   region: Geometry,
   whitening: WhiteningAffine,
   opts: { marginM: number; limit: number },
   q: Knex = db,
-): Promise<CandidateRow[]> {
+): Promise<{ rows: CandidateRow[]; insideTotal: number }> {
   const w = whitening;
   const aff = 'ST_Affine(p.geom, ?, ?, ?, ?, ?, ?)';
   const affArgs = [w.a, w.b, w.d, w.e, w.xoff, w.yoff];
@@ -145,14 +146,15 @@ export async function buildingsNearRegion(
             ST_Y(ST_PointOnSurface(p.geom)) as lat, ST_X(ST_PointOnSurface(p.geom)) as lon,
             ST_Intersects(p.geom, r.g) as inside,
             ST_Distance(${aff}, ST_SetSRID(ST_MakePoint(0, 0), 4326)) as m_near,
-            ST_Distance(ST_Centroid(${aff}), ST_SetSRID(ST_MakePoint(0, 0), 4326)) as m_centroid
+            ST_Distance(ST_Centroid(${aff}), ST_SetSRID(ST_MakePoint(0, 0), 4326)) as m_centroid,
+            (count(*) filter (where ST_Intersects(p.geom, r.g)) over ())::int as inside_total
        from places p, region r
       where p.kind = 'building' and ST_DWithin(geography(p.geom), geography(r.g), ?)
       order by m_near, m_centroid, p.id
       limit ?`,
     [JSON.stringify(region), ...affArgs, ...affArgs, opts.marginM, opts.limit],
   );
-  return rows.map((r: Record<string, never>) => ({
+  const out = rows.map((r: Record<string, never>) => ({
     placeId: r.id,
     address: placeAddress(r),
     lat: r.lat,
@@ -160,4 +162,5 @@ export async function buildingsNearRegion(
     insideRegion: r.inside,
     mahalanobis: r.m_near,
   }));
+  return { rows: out, insideTotal: rows[0]?.inside_total ?? 0 };
 }

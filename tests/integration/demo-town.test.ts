@@ -1,9 +1,13 @@
 /**
  * The demo town as `npm start` (and npm test) seeds it: Quillon, our own fiction, about 100
  * numbered houses on a few streets of our own names, laid out so both demo cases' fixes fall
- * among houses: the building holding each made-up source is a candidate inside the 95 % region.
+ * among houses: the building holding each made-up source is a candidate inside the 95 % region,
+ * and the count of houses inside matches Turf's booleanIntersects over the footprints (Turf 7,
+ * from the registry: a reference outside PostGIS), however long the list is.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
+import { bbox, booleanIntersects, feature } from '@turf/turf';
+import type { Geometry, Polygon } from 'geojson';
 import { db } from '@/db';
 import { DEMO_SOURCES } from '@/db/seeds/demo';
 import { DEMO_TOWN } from '@/db/seeds/demo-town';
@@ -48,5 +52,12 @@ describe('the demo town', () => {
     expect(r.json.insideCount).toBeGreaterThanOrEqual(3);
     const items = r.json.items as { placeId: string; address: string; insideRegion: boolean }[];
     expect(items.find((i) => i.placeId === rows[0].id)).toMatchObject({ insideRegion: true, address: expect.stringMatching(/, QH7 0DM Quillon$/) });
+
+    const region = r.json.region as Polygon;
+    const [w, s, e, n] = bbox(region);
+    const near = await db.raw(`select ST_AsGeoJSON(geom)::json as g from places where kind = 'building' and geom && ST_MakeEnvelope(?, ?, ?, ?, 4326)`, [w, s, e, n]);
+    const byTurf = near.rows.filter((x: { g: Geometry }) => booleanIntersects(feature(x.g), feature(region))).length;
+    console.log(`[figure] demo case "${title}": ${r.json.insideCount} houses inside the region (Turf: ${byTurf}), ${items.length} listed${r.json.truncated ? ', list cut short' : ''}`);
+    expect(r.json.insideCount).toBe(byTurf);
   });
 });
