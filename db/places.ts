@@ -52,7 +52,8 @@ export async function upsertPlaces(trx: Knex.Transaction, places: PlaceInput[]):
       street: p.street ?? null,
       postcode: p.postcode ?? null,
       city: p.city ?? null,
-      geom: trx.raw('ST_SetSRID(ST_GeomFromGeoJSON(?), 4326)', [JSON.stringify(p.geometry)]),
+      // RFC 7946 positions may carry an altitude: the map and the region are flat, so it is dropped.
+      geom: trx.raw('ST_Force2D(ST_SetSRID(ST_GeomFromGeoJSON(?), 4326))', [JSON.stringify(p.geometry)]),
     }));
     const out: { inserted: boolean }[] = await trx('places')
       .insert(rows)

@@ -90,6 +90,17 @@ describe('places:import with GeoJSON', () => {
     expect((await countPlaces(SOURCE)).buildings).toBe(41);
   });
 
+  it('takes positions with an altitude (RFC 7946 section 3.1.1 allows a third number) and keeps them flat', async () => {
+    const ring = square(LON0, LAT0 + 0.0005)[0].map(([lon, lat]) => [lon, lat, 12.5]);
+    const withAlt = JSON.stringify({ type: 'Feature', id: 'alt-1', properties: { building: 'yes', 'addr:housenumber': '9' }, geometry: { type: 'Polygon', coordinates: [ring] } });
+    const r = await cli(await file('alt.geojson', withAlt), '--source', SOURCE);
+    expect(r.code, r.err).toBe(0);
+    expect(r.out).toMatch(/1 new/);
+    const { rows } = await db.raw('select ST_NDims(geom) as dims from places where source = ? and source_id = ?', [SOURCE, 'alt-1']);
+    expect(rows).toEqual([{ dims: 2 }]);
+    await db('places').where({ source: SOURCE, source_id: 'alt-1' }).del();
+  });
+
   it('refuses bad files with the line or feature named, importing nothing', async () => {
     const before = await countPlaces(SOURCE);
     const town = geojsonTown(5, 500) as { features: { geometry: { coordinates: number[][][] } }[] };
