@@ -182,6 +182,12 @@ describe('places:import with OpenStreetMap XML', () => {
     const own = await api(`/api/places?bbox=${box(LON0 + 0.002, LAT0)}`, { session: hunter });
     expect(own.json.features.some((f: { properties: { street: string } }) => f.properties.street === 'Test Wharrow Lane')).toBe(true);
     expect(own.json.attribution).toEqual([]);
+    // A GeoJSON export from OpenStreetMap (e.g. an Overpass answer) keeps its OSM ids under a source of the club's naming: still credited.
+    const overpass = JSON.stringify({ type: 'Feature', id: 'way/424242', properties: { highway: 'service', name: 'Test Overpass Lane' }, geometry: { type: 'LineString', coordinates: [[LON0 + 0.05, LAT0], [LON0 + 0.0505, LAT0]] } });
+    await inTransaction((trx) => importPlaceFile(trx, 'overpass.geojson', overpass, SOURCE));
+    const fromOverpass = await api(`/api/places?bbox=${box(LON0 + 0.05, LAT0)}`, { session: hunter });
+    expect(fromOverpass.json.features.map((f: { properties: { name: string } }) => f.properties.name)).toEqual(['Test Overpass Lane']);
+    expect(fromOverpass.json.attribution).toHaveLength(1);
   });
 
   it('names the line of an XML error and of a way with a missing node, importing nothing', async () => {
