@@ -52,7 +52,8 @@ export async function upsertPlaces(trx: Knex.Transaction, places: PlaceInput[]):
       street: p.street ?? null,
       postcode: p.postcode ?? null,
       city: p.city ?? null,
-      geom: trx.raw('ST_SetSRID(ST_GeomFromGeoJSON(?), 4326)', [JSON.stringify(p.geometry)]),
+      // RFC 7946 positions may carry an altitude: the map and the region are flat, so it is dropped.
+      geom: trx.raw('ST_Force2D(ST_SetSRID(ST_GeomFromGeoJSON(?), 4326))', [JSON.stringify(p.geometry)]),
     }));
     const out: { inserted: boolean }[] = await trx('places')
       .insert(rows)
@@ -87,11 +88,17 @@ export async function countPlaces(source?: string, q: Knex = db): Promise<{ buil
 
 /**
  * Streets and buildings whose geometry meets the box (WGS84 degrees), streets first, at most `limit`.
- * @returns the features and whether more were there than the limit
+ * @returns the features, whether more were there than the limit, and whether any of them came
+ *   from OpenStreetMap (an OSM export, or a GeoJSON file with OSM ids), whose licence asks for attribution
  */
-export async function placesInBox(box: { west: number; south: number; east: number; north: number }, limit: number, q: Knex = db): Promise<{ features: PlaceFeature[]; truncated: boolean }> {
-  const { rows } = await q.raw<{ rows: (Omit<PlaceFeature['properties'], 'address'> & { id: string; city: string | null; geometry: Geometry })[] }>(
-    `select id, kind, name, housenumber, street, postcode, city, ST_AsGeoJSON(geom, 7)::json as geometry
+export async function placesInBox(
+  box: { west: number; south: number; east: number; north: number },
+  limit: number,
+  q: Knex = db,
+): Promise<{ features: PlaceFeature[]; truncated: boolean; fromOsm: boolean }> {
+  const { rows } = await q.raw<{ rows: (Omit<PlaceFeature['properties'], 'address'> & { id: string; city: string | null; geometry: Geometry; osm: boolean })[] }>(
+    `select id, kind, name, housenumber, street, postcode, city, ST_AsGeoJSON(geom, 7)::json as geometry,
+            (source = 'osm' or source_id ~ '^(node|way|relation)/[0-9]+$') as osm
        from places
       where geom && ST_MakeEnvelope(?, ?, ?, ?, 4326)
       order by kind = 'building', id
@@ -104,7 +111,7 @@ export async function placesInBox(box: { west: number; south: number; east: numb
     geometry: r.geometry,
     properties: { kind: r.kind, name: r.name, housenumber: r.housenumber, street: r.street, postcode: r.postcode, address: r.kind === 'building' ? placeAddress(r) : null },
   }));
-  return { features, truncated: rows.length > limit };
+  return { features, truncated: rows.length > limit, fromOsm: rows.slice(0, limit).some((r) => r.osm) };
 }
 
 export async function getPlace(id: string, q: Knex = db): Promise<{ id: string; kind: PlaceKind; address: string | null; lat: number; lon: number } | undefined> {
@@ -123,13 +130,14 @@ export type CandidateRow = { placeId: string; address: string | null; lat: numbe
  * Buildings meeting the region (a GeoJSON polygon) or within `marginM` metres of it, ordered by
  * the Mahalanobis distance of the footprint's nearest point (0 when the footprint holds the
  * centre), then of its centroid; at most `limit`.
+ * @returns those rows, and how many buildings meet the region in all (the limit aside)
  */
 export async function buildingsNearRegion(
   region: Geometry,
   whitening: WhiteningAffine,
   opts: { marginM: number; limit: number },
   q: Knex = db,
-): Promise<CandidateRow[]> {
+): Promise<{ rows: CandidateRow[]; insideTotal: number }> {
   const w = whitening;
   const aff = 'ST_Affine(p.geom, ?, ?, ?, ?, ?, ?)';
   const affArgs = [w.a, w.b, w.d, w.e, w.xoff, w.yoff];
@@ -139,14 +147,15 @@ export async function buildingsNearRegion(
             ST_Y(ST_PointOnSurface(p.geom)) as lat, ST_X(ST_PointOnSurface(p.geom)) as lon,
             ST_Intersects(p.geom, r.g) as inside,
             ST_Distance(${aff}, ST_SetSRID(ST_MakePoint(0, 0), 4326)) as m_near,
-            ST_Distance(ST_Centroid(${aff}), ST_SetSRID(ST_MakePoint(0, 0), 4326)) as m_centroid
+            ST_Distance(ST_Centroid(${aff}), ST_SetSRID(ST_MakePoint(0, 0), 4326)) as m_centroid,
+            (count(*) filter (where ST_Intersects(p.geom, r.g)) over ())::int as inside_total
        from places p, region r
       where p.kind = 'building' and ST_DWithin(geography(p.geom), geography(r.g), ?)
       order by m_near, m_centroid, p.id
       limit ?`,
     [JSON.stringify(region), ...affArgs, ...affArgs, opts.marginM, opts.limit],
   );
-  return rows.map((r: Record<string, never>) => ({
+  const out = rows.map((r: Record<string, never>) => ({
     placeId: r.id,
     address: placeAddress(r),
     lat: r.lat,
@@ -154,4 +163,5 @@ export async function buildingsNearRegion(
     insideRegion: r.inside,
     mahalanobis: r.m_near,
   }));
+  return { rows: out, insideTotal: rows[0]?.inside_total ?? 0 };
 }

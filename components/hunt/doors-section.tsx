@@ -42,6 +42,11 @@ export function DoorsSection({ doors, canConfirm, point, onConfirmed }: { doors:
       {doors.candidatesError && <p className="text-alarm-600">The houses could not be loaded: {doors.candidatesError.message}</p>}
       {!candidates?.region && !doors.candidatesError && <p className="text-ink-soft">There is no fix yet, so no region to list houses from.</p>}
       {candidates?.region && items.length === 0 && <p className="text-ink-soft">No buildings from the club’s places layer are in or near the region.</p>}
+      {candidates?.truncated && (
+        <p className="text-sm text-ink-soft" data-testid="candidates-truncated">
+          The {items.length} most likely are listed; more bearings from other sides will narrow the region.
+        </p>
+      )}
       {shown.length > 0 && (
         <ol className="divide-y divide-ink/10 rounded-lg border border-ink/15" aria-label="Houses, most likely first" data-testid="candidate-list">
           {shown.map((c) => (

@@ -53,6 +53,8 @@ export function PlacesLayer({ minZoom, highlight }: { minZoom: number; highlight
   const map = useMap();
   const [zoom, setZoom] = useState(map.getZoom());
   const [features, setFeatures] = useState<PlaceFeature[]>([]);
+  // What the drawn places must credit (OpenStreetMap's "© contributors" for imported OSM data).
+  const [attribution, setAttribution] = useState<string[]>([]);
   const timer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
   const pending = useRef<AbortController | null>(null);
 
@@ -60,14 +62,21 @@ export function PlacesLayer({ minZoom, highlight }: { minZoom: number; highlight
     const z = map.getZoom();
     setZoom(z);
     clearTimeout(timer.current);
-    if (z < minZoom) return setFeatures([]);
+    if (z < minZoom) {
+      setAttribution([]);
+      return setFeatures([]);
+    }
     timer.current = setTimeout(async () => {
       pending.current?.abort();
       const ctl = new AbortController();
       pending.current = ctl;
       try {
         const res = await fetch(`/api/places?bbox=${viewBox(map)}`, { signal: ctl.signal, headers: { accept: 'application/json' } });
-        if (res.ok) setFeatures(((await res.json()) as { features: PlaceFeature[] }).features);
+        if (res.ok) {
+          const answer = (await res.json()) as { features: PlaceFeature[]; attribution?: string[] };
+          setFeatures(answer.features);
+          setAttribution(answer.attribution ?? []);
+        }
       } catch {
         /* offline or aborted: keep what is drawn */
       }
@@ -82,6 +91,13 @@ export function PlacesLayer({ minZoom, highlight }: { minZoom: number; highlight
     };
   }, [load]);
   useMapEvents({ moveend: load, zoomend: load });
+  const credit = attribution.join(' · ');
+  useEffect(() => {
+    const control = map.attributionControl;
+    if (!credit || !control) return;
+    control.addAttribution(credit);
+    return () => void control.removeAttribution(credit);
+  }, [map, credit]);
 
   if (features.length === 0) return null;
   const styleOf = (id: string) =>

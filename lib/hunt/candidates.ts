@@ -12,7 +12,10 @@ export const CANDIDATE_LIMIT = 60;
 export type Candidate = { placeId: string; address: string | null; lat: number; lon: number; insideRegion: boolean; likelihood: number };
 export type CandidatesView = {
   items: Candidate[];
+  /** How many buildings meet the region in all, also when more than the list holds. */
   insideCount: number;
+  /** True when the list stopped at CANDIDATE_LIMIT with more buildings in or near the region. */
+  truncated: boolean;
   /** The region the list was cut from, as GeoJSON (for the map); null without a usable fix. */
   region: Polygon | null;
   confidence: number | null;
@@ -35,12 +38,13 @@ export function fixRegion(fix: OkFix): Polygon {
  * footprint's nearest point, exp(-d²/2) for the Mahalanobis distance d: 1 when the footprint holds
  * the fix's centre. Where to listen more closely from public ground; never an accusation.
  */
-export async function caseCandidates(caseId: string, q: Knex = db): Promise<CandidatesView> {
+export async function caseCandidates(caseId: string, q: Knex = db, limit = CANDIDATE_LIMIT): Promise<CandidatesView> {
   const fix = (await latestFixSnapshot(caseId, q))?.result;
   const whitening = fix?.ok ? whiteningAffine(fix, fix.ellipse) : null;
-  if (!fix?.ok || !whitening) return { items: [], insideCount: 0, region: null, confidence: null };
+  if (!fix?.ok || !whitening) return { items: [], insideCount: 0, truncated: false, region: null, confidence: null };
   const region = fixRegion(fix);
-  const rows = await buildingsNearRegion(region, whitening, { marginM: CANDIDATE_MARGIN_M, limit: CANDIDATE_LIMIT }, q);
-  const items = rows.map(({ mahalanobis, ...r }) => ({ ...r, likelihood: Math.round(Math.exp(-(mahalanobis ** 2) / 2) * 1000) / 1000 }));
-  return { items, insideCount: items.filter((i) => i.insideRegion).length, region, confidence: fix.ellipse.confidence };
+  // One more than the list holds tells whether the list is cut short.
+  const { rows, insideTotal } = await buildingsNearRegion(region, whitening, { marginM: CANDIDATE_MARGIN_M, limit: limit + 1 }, q);
+  const items = rows.slice(0, limit).map(({ mahalanobis, ...r }) => ({ ...r, likelihood: Math.round(Math.exp(-(mahalanobis ** 2) / 2) * 1000) / 1000 }));
+  return { items, insideCount: insideTotal, truncated: rows.length > limit, region, confidence: fix.ellipse.confidence };
 }

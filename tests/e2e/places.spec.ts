@@ -22,6 +22,13 @@ test('a hunter sees house numbers inside the region, confirms the premises, and 
   const caseId = ((await (await hunter.request.get('/api/cases?q=Rasping')).json()).items as { id: string; title: string }[]).find(
     (c) => c.title === DEMO_OPEN_TITLE,
   )!.id;
+  // The field screen lists the same houses, with the cautions beside them.
+  await hunter.goto(`/cases/${caseId}/field`);
+  const fieldDoors = hunter.getByTestId('doors');
+  await expect(fieldDoors.getByRole('heading', { name: /\d+ houses? inside the region/ })).toBeVisible({ timeout: 20_000 });
+  await expect(hunter.getByTestId('doors-caution')).toContainText('not an accusation');
+  await expect(fieldDoors.getByTestId('candidate').first()).toContainText(/, QH7 0DM Quillon/);
+
   await hunter.goto(`/cases/${caseId}`);
 
   const doors = hunter.getByTestId('doors');

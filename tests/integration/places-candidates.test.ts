@@ -12,6 +12,7 @@ import { insertFixSnapshot } from '@/db/fixes';
 import { upsertPlaces, type PlaceInput } from '@/db/places';
 import { getUserByEmail } from '@/db/users';
 import type { Fix } from '@/lib/df';
+import { caseCandidates } from '@/lib/hunt/candidates';
 import { PLACES_CAP } from '@/lib/validation/places';
 import { api, signIn, type Session } from '../support/http';
 
@@ -142,6 +143,14 @@ describe('GET /api/cases/:id/candidates', () => {
     const order = r.json.items.map((i: { placeId: string }) => ranked.find((x) => x.id === i.placeId)?.d).filter((d: number | undefined) => d !== undefined);
     for (let k = 1; k < order.length; k++) expect(order[k]).toBeGreaterThanOrEqual(order[k - 1] - 1e-3);
     expect(r.json.items[0]).toEqual(expect.objectContaining({ address: expect.stringMatching(/Test Grid Way/), insideRegion: true }));
+
+    // A list cut short still counts every building in the region, and says it was cut.
+    const short = await caseCandidates(caseId, db, 10);
+    expect(short.items.map((i) => i.placeId)).toEqual(r.json.items.slice(0, 10).map((i: { placeId: string }) => i.placeId));
+    expect(short.truncated).toBe(true);
+    expect(short.insideCount).toBe(r.json.insideCount);
+    expect(short.insideCount).toBeGreaterThanOrEqual(inside);
+    expect(short.insideCount).toBeLessThanOrEqual(inside + boundary);
   });
 
   it('is for the committee and the assigned hunter only', async () => {

@@ -12,6 +12,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { db, inTransaction } from '@/db';
 import { countPlaces } from '@/db/places';
 import { importPlaceFile } from '@/lib/places/import-places';
+import { api, signIn } from '../support/http';
 
 const run = promisify(execFile);
 const SOURCE = `test-import-${process.pid}`;
@@ -89,6 +90,17 @@ describe('places:import with GeoJSON', () => {
     expect((await countPlaces(SOURCE)).buildings).toBe(41);
   });
 
+  it('takes positions with an altitude (RFC 7946 section 3.1.1 allows a third number) and keeps them flat', async () => {
+    const ring = square(LON0, LAT0 + 0.0005)[0].map(([lon, lat]) => [lon, lat, 12.5]);
+    const withAlt = JSON.stringify({ type: 'Feature', id: 'alt-1', properties: { building: 'yes', 'addr:housenumber': '9' }, geometry: { type: 'Polygon', coordinates: [ring] } });
+    const r = await cli(await file('alt.geojson', withAlt), '--source', SOURCE);
+    expect(r.code, r.err).toBe(0);
+    expect(r.out).toMatch(/1 new/);
+    const { rows } = await db.raw('select ST_NDims(geom) as dims from places where source = ? and source_id = ?', [SOURCE, 'alt-1']);
+    expect(rows).toEqual([{ dims: 2 }]);
+    await db('places').where({ source: SOURCE, source_id: 'alt-1' }).del();
+  });
+
   it('refuses bad files with the line or feature named, importing nothing', async () => {
     const before = await countPlaces(SOURCE);
     const town = geojsonTown(5, 500) as { features: { geometry: { coordinates: number[][][] } }[] };
@@ -156,6 +168,26 @@ describe('places:import with OpenStreetMap XML', () => {
     const again = await cli(p);
     expect(again.out).toMatch(/0 new, 3 updated/);
     expect(await countPlaces('osm')).toEqual({ buildings: 2, streets: 1, numbered: 2 });
+  });
+
+  it('the map answer credits OpenStreetMap for its data (ODbL), and only where OSM data is drawn', async () => {
+    // The OSM Foundation's copyright page asks for "© OpenStreetMap contributors" on maps made from the data.
+    const hunter = await signIn('hunter@example.test');
+    const box = (lon: number, lat: number) => `${lon - 0.001},${lat - 0.001},${lon + 0.001},${lat + 0.001}`;
+    const osm = await api(`/api/places?bbox=${box(LON0, LAT0 + 0.002)}`, { session: hunter });
+    expect(osm.status, osm.text).toBe(200);
+    expect(osm.json.features.some((f: { properties: { street: string } }) => f.properties.street === 'Test Brindle Walk')).toBe(true);
+    expect(osm.json.attribution).toEqual([expect.stringMatching(/&copy; <a href="https:\/\/www\.openstreetmap\.org\/copyright">OpenStreetMap<\/a> contributors/)]);
+    // The GeoJSON town of our own (no OSM ids) a little further south: nothing to credit.
+    const own = await api(`/api/places?bbox=${box(LON0 + 0.002, LAT0)}`, { session: hunter });
+    expect(own.json.features.some((f: { properties: { street: string } }) => f.properties.street === 'Test Wharrow Lane')).toBe(true);
+    expect(own.json.attribution).toEqual([]);
+    // A GeoJSON export from OpenStreetMap (e.g. an Overpass answer) keeps its OSM ids under a source of the club's naming: still credited.
+    const overpass = JSON.stringify({ type: 'Feature', id: 'way/424242', properties: { highway: 'service', name: 'Test Overpass Lane' }, geometry: { type: 'LineString', coordinates: [[LON0 + 0.05, LAT0], [LON0 + 0.0505, LAT0]] } });
+    await inTransaction((trx) => importPlaceFile(trx, 'overpass.geojson', overpass, SOURCE));
+    const fromOverpass = await api(`/api/places?bbox=${box(LON0 + 0.05, LAT0)}`, { session: hunter });
+    expect(fromOverpass.json.features.map((f: { properties: { name: string } }) => f.properties.name)).toEqual(['Test Overpass Lane']);
+    expect(fromOverpass.json.attribution).toHaveLength(1);
   });
 
   it('names the line of an XML error and of a way with a missing node, importing nothing', async () => {
