@@ -200,7 +200,7 @@ export function FieldScreen({ caseId }: { caseId: string }) {
       {!canHunt && <p className="text-ink-soft">You can follow this hunt but not add bearings to it.</p>}
       <BearingList caseId={caseId} bearings={bearings ?? []} outlierIds={outlierIds} canEdit={canHunt} refresh={refresh} />
 
-      {canHunt && <PrepareArea caseId={caseId} centre={f && f.ok ? { lat: f.lat, lon: f.lon } : (caseDetail.reportedPosition ?? null)} />}
+      {canHunt && <PrepareArea caseId={caseId} fixId={fix?.current?.id} centre={f && f.ok ? { lat: f.lat, lon: f.lon } : (caseDetail.reportedPosition ?? null)} />}
 
       <p className="text-sm text-ink-soft">
         Public ground only · never touch or climb utility hardware · never confront anyone · local law and the regulator decide.{' '}
