@@ -154,6 +154,8 @@ test('offline: the field screen reopens from the service worker, typed items wai
   await expect(page.getByText('Bearing kept on this phone')).toBeVisible();
   await expect(page.getByTestId('offline-fix')).toContainText('Not yet sent');
   await expect(page.getByTestId('offline-fix')).toContainText('3 lines, 1 of them still waiting');
+  const phoneFigure = (await page.getByTestId('offline-fix').locator('p.text-3xl').textContent())!.trim();
+  expect(phoneFigure).toMatch(/^±\d+ m$/);
 
   await page.getByRole('button', { name: 'Walk', exact: true }).click();
   await expect(page.getByTestId('walk-position')).toContainText('±6 m');
@@ -183,6 +185,10 @@ test('offline: the field screen reopens from the service worker, typed items wai
   console.log(`[field] queued 3 items (1 bearing, 2 readings), sent 3; reconnect -> all stored on the server in ${storedMs} ms`);
   info.annotations.push({ type: 'field figures', description: `queued 3, sent 3, reconnect to stored ${storedMs} ms, precache ${precache.bytes} bytes in ${precache.entries} entries` });
   await expect(page.getByTestId('offline-fix')).toHaveCount(0);
+  // The phone's fix (lib/df in the browser) was the one the server computes once the line arrives.
+  const serverFix = (await api(`/api/cases/${caseId}/fix`, { session: hunterApi })).json.current.fix;
+  expect(`±${Math.round(serverFix.ellipse.semiMajorM)} m`).toBe(phoneFigure);
+  await expect(page.getByTestId('fix-summary')).toContainText(phoneFigure);
   const readings = (await api(`/api/cases/${caseId}/readings`, { session: hunterApi })).json.items;
   expect(readings.map((r: { level: { value: number } }) => r.level.value)).toEqual([7, 9]);
 
@@ -237,7 +243,15 @@ test('offline: the field screen reopens from the service worker, typed items wai
 /** WCAG 2.2 contrast ratio (its definitions of relative luminance and contrast ratio) of an element's text against what is behind it. */
 const textContrast = (page: Page, testId: string) =>
   page.getByTestId(testId).first().evaluate((el) => {
-    const rgba = (c: string) => (c.match(/[\d.]+/g) ?? []).map(Number).concat([1]).slice(0, 4) as [number, number, number, number];
+    // Any CSS colour (Tailwind 4 computes oklab/oklch and color-mix) as sRGB bytes and alpha 0-1: painted on a 1-px canvas.
+    const ctx = document.createElement('canvas').getContext('2d', { willReadFrequently: true })!;
+    const rgba = (c: string): [number, number, number, number] => {
+      ctx.clearRect(0, 0, 1, 1);
+      ctx.fillStyle = c;
+      ctx.fillRect(0, 0, 1, 1);
+      const [r, g, b, a] = ctx.getImageData(0, 0, 1, 1).data;
+      return a === 0 ? [0, 0, 0, 0] : [r, g, b, a / 255];
+    };
     const over = (top: number[], under: number[]) => top.slice(0, 3).map((v, i) => v * top[3] + under[i] * (1 - top[3]));
     // the backgrounds from the element outwards, laid over each other (white behind everything)
     const layers: [number, number, number, number][] = [];
@@ -275,7 +289,11 @@ test('prepare for the field: the area is kept, places come back offline for a vi
   await expect(page.getByTestId('case-map').locator('.qf-building').first()).toBeAttached({ timeout: 20_000 });
 
   // Sunlight: the key figures (the fix in the bar and in the summary) at 7:1 or better (WCAG 2.2 level AAA, 1.4.6).
-  for (const id of ['bar-fix', 'fix-summary']) expect(await textContrast(page, id), id).toBeGreaterThanOrEqual(7);
+  for (const id of ['bar-fix', 'fix-summary']) {
+    const ratio = await textContrast(page, id);
+    console.log(`[field] contrast of ${id}: ${ratio.toFixed(1)}:1`);
+    expect(ratio, id).toBeGreaterThanOrEqual(7);
+  }
 
   await page.getByTestId('prepare-area').click();
   await expect(page.getByTestId('prepare-result')).toContainText('Case, lines, walk and places kept on this phone.', { timeout: 30_000 });
