@@ -115,6 +115,10 @@ test('offline: the field screen reopens from the service worker, typed items wai
   expect(overlaps(figure, bar), `fix figure ${JSON.stringify(figure)} vs bar ${JSON.stringify(bar)}`).toBe(false);
   const map = (await page.getByTestId('case-map').locator('.leaflet-container').boundingBox())!;
   expect(map.height / 640).toBeGreaterThanOrEqual(0.4);
+  // The map's own note (no tiles here) never covers its zoom buttons.
+  const zoomButtons = (await page.getByTestId('case-map').locator('.leaflet-control-zoom').boundingBox())!;
+  const tilesNote = (await page.getByTestId('case-map').getByTestId('tiles-off').boundingBox())!;
+  expect(overlaps(tilesNote, zoomButtons), `note ${JSON.stringify(tilesNote)} vs zoom ${JSON.stringify(zoomButtons)}`).toBe(false);
   for (const target of [...['Add bearing', 'Sweep', 'Bearings', 'Walk', 'Sign out'].map((name) => page.getByRole('button', { name, exact: true })), page.getByTestId('nav-menu')]) {
     const box = (await target.boundingBox())!;
     expect(box.height, (await target.textContent()) ?? "").toBeGreaterThanOrEqual(48);
