@@ -299,6 +299,25 @@ test('prepare for the field: the area is kept, places come back offline for a vi
     expect(ratio, id).toBeGreaterThanOrEqual(7);
   }
 
+  // The issue's own example: "±151 m" in the bar beside the actions, nothing overlapping, each label on one line.
+  const barFix = (await page.getByTestId('bar-fix').boundingBox())!;
+  const actions = [page.getByRole('button', { name: 'Add bearing', exact: true }), page.getByRole('button', { name: 'Sweep', exact: true })];
+  const boxes = [barFix];
+  for (const b of actions) {
+    const box = (await b.boundingBox())!;
+    const lineHeight = await b.evaluate((el) => parseFloat(getComputedStyle(el).lineHeight));
+    const textHeight = await b.evaluate((el) => {
+      const r = document.createRange();
+      r.selectNodeContents(el);
+      return r.getBoundingClientRect().height;
+    });
+    expect(textHeight, `${await b.textContent()} on one line`).toBeLessThan(lineHeight * 1.5);
+    expect(box.x + box.width).toBeLessThanOrEqual(360);
+    boxes.push(box);
+  }
+  for (let i = 0; i < boxes.length; i++) for (let j = i + 1; j < boxes.length; j++) expect(overlaps(boxes[i], boxes[j]), `bar items ${i} and ${j}`).toBe(false);
+  console.log(`[field] bar at 360 px: fix figure "${(await page.getByTestId('bar-fix').locator('span').first().textContent())}"`);
+
   await page.getByTestId('prepare-area').click();
   await expect(page.getByTestId('prepare-result')).toContainText('Case, lines, walk and places kept on this phone.', { timeout: 30_000 });
   await expect(page.getByTestId('prepare-result')).toContainText('Storage used by Quietfix on this phone:');
