@@ -10,6 +10,7 @@ import type { PrecacheEntry, SerwistGlobalConfig, SerwistPlugin } from 'serwist'
 import { CacheFirst, ExpirationPlugin, NetworkFirst, NetworkOnly, Serwist, StaleWhileRevalidate } from 'serwist';
 import { flushQueue, QUEUE_SYNC_TAG } from '../lib/field/queue';
 import { FIELD_CACHES, OFFLINE_PAGE, STORED_AT_HEADER } from '../lib/field/cache-names';
+import { joinKeptPlaces, placesBox, type KeptPlacesAnswer } from '../lib/field/places-fallback';
 
 declare global {
   interface WorkerGlobalScope extends SerwistGlobalConfig {
@@ -29,7 +30,34 @@ const stampWhenStored: SerwistPlugin = {
 };
 
 const sameOriginGet = (request: Request, url: URL) => request.method === 'GET' && url.origin === self.location.origin;
-const FIELD_DATA = /^\/api\/(cases(\/|$)|places$|profile$)/;
+const FIELD_DATA = /^\/api\/(cases(\/|$)|profile$)/;
+
+/**
+ * Offline, a places box never kept as such (the map moved, or the area came from "Prepare for the
+ * field") is answered from every kept places answer that overlaps it (lib/field/places-fallback.ts).
+ */
+const placesFromOverlappingAnswers: SerwistPlugin = {
+  handlerDidError: async ({ request }) => {
+    const wanted = placesBox(request.url);
+    if (!wanted) return undefined;
+    const cache = await caches.open(FIELD_CACHES.data);
+    const kept: KeptPlacesAnswer[] = [];
+    for (const key of await cache.keys()) {
+      const box = new URL(key.url).pathname === '/api/places' ? placesBox(key.url) : null;
+      const res = box && (await cache.match(key));
+      if (!box || !res) continue;
+      const body = await res.json().catch(() => null);
+      if (body && Array.isArray(body.features)) kept.push({ box, storedAt: res.headers.get(STORED_AT_HEADER), body });
+    }
+    const joined = joinKeptPlaces(wanted, kept);
+    if (!joined) return undefined;
+    const headers = new Headers({ 'content-type': 'application/json' });
+    if (joined.storedAt) headers.set(STORED_AT_HEADER, joined.storedAt);
+    return new Response(JSON.stringify(joined.body), { status: 200, headers });
+  },
+};
+/** One expiry for the data cache, whichever route filled it. */
+const dataExpiry = new ExpirationPlugin({ maxEntries: 400, maxAgeSeconds: 30 * 24 * 3600 });
 
 const serwist = new Serwist({
   precacheEntries: [...(self.__SW_MANIFEST ?? []), { url: OFFLINE_PAGE, revision: String(self.__SW_MANIFEST?.length ?? 0) + '-offline-1' }],
@@ -39,12 +67,12 @@ const serwist = new Serwist({
   runtimeCaching: [
     { matcher: ({ url }) => url.pathname.startsWith('/api/auth/'), handler: new NetworkOnly() },
     {
+      matcher: ({ request, url }) => sameOriginGet(request, url) && url.pathname === '/api/places',
+      handler: new NetworkFirst({ cacheName: FIELD_CACHES.data, networkTimeoutSeconds: 8, plugins: [stampWhenStored, dataExpiry, placesFromOverlappingAnswers] }),
+    },
+    {
       matcher: ({ request, url }) => sameOriginGet(request, url) && FIELD_DATA.test(url.pathname),
-      handler: new NetworkFirst({
-        cacheName: FIELD_CACHES.data,
-        networkTimeoutSeconds: 8,
-        plugins: [stampWhenStored, new ExpirationPlugin({ maxEntries: 400, maxAgeSeconds: 30 * 24 * 3600 })],
-      }),
+      handler: new NetworkFirst({ cacheName: FIELD_CACHES.data, networkTimeoutSeconds: 8, plugins: [stampWhenStored, dataExpiry] }),
     },
     {
       matcher: ({ request, url }) => sameOriginGet(request, url) && request.mode === 'navigate' && !url.pathname.startsWith('/api/'),

@@ -2,7 +2,10 @@
 
 import { useState } from 'react';
 import { useMapSettings } from '@/components/map/map-settings';
+import { doorsUrls } from '@/components/hunt/use-doors';
+import { huntDataUrls } from '@/components/hunt/use-hunt-data';
 import { callApi } from '@/lib/api/client';
+import { readingsUrl } from './use-level-trail';
 import { tilesForBox, tileUrl } from './tile-list';
 
 /** Half the side of the area kept around the fix, metres. */
@@ -28,17 +31,21 @@ const loadImage = (src: string) =>
 /**
  * "Prepare for the field": loads, while there is a connection, everything the hunt needs around
  * the fix (the case, its lines, fix, walk, candidates, premises and the places layer within 500 m)
- * so the service worker keeps it, then shows the storage used on the phone. Tiles are fetched
+ * at the very addresses the screen reads (so the service worker's copies are the ones it finds
+ * offline; a places box the map asks for later is answered from the kept area, see app/sw.ts),
+ * then shows the storage used on the phone. Tiles are fetched
  * ahead only when the club's tile server allows it (TILE_PREFETCH_MAX > 0), at most that many.
  */
-export function PrepareArea({ caseId, centre }: { caseId: string; centre: { lat: number; lon: number } | null }) {
+export function PrepareArea({ caseId, centre, fixId }: { caseId: string; centre: { lat: number; lon: number } | null; fixId?: string | null }) {
   const settings = useMapSettings();
   const [state, setState] = useState<{ busy: boolean; text: string | null }>({ busy: false, text: null });
 
   const prepare = async () => {
     setState({ busy: true, text: 'Loading the area…' });
-    const urls = [`/api/cases/${caseId}`, `/api/cases/${caseId}/bearings?pageSize=100`, `/api/cases/${caseId}/fix`, `/api/cases/${caseId}/readings`, '/api/profile'];
-    if (settings.places) urls.push(`/api/cases/${caseId}/candidates`, `/api/cases/${caseId}/premises`);
+    const hunt = huntDataUrls(caseId);
+    const doors = doorsUrls(caseId, fixId);
+    const urls = [hunt.case, hunt.bearings, hunt.fix, readingsUrl(caseId)];
+    if (settings.places) urls.push(doors.candidates, doors.premises);
     const box = centre ? boxAround(centre, AREA_HALF_M) : null;
     if (box && settings.places) urls.push(`/api/places?bbox=${[box.west, box.south, box.east, box.north].map((v) => v.toFixed(6)).join(',')}`);
     const answers = await Promise.all(urls.map((u) => callApi(u)));

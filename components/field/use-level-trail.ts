@@ -37,8 +37,11 @@ function trailOf(source: TrailSource, raw: Raw[]): LevelTrailProps {
  * each trail in the order taken with its smoothed levels and peak (lib/df trailPeak) and its
  * strongest single reading. Waiting readings are converted on the phone without the S-meter offset.
  */
+/** The walk's address (shared with "Prepare for the field"). */
+export const readingsUrl = (caseId: string) => `/api/cases/${caseId}/readings`;
+
 export function useLevelTrails(caseId: string, queued: QueuedItem[], enabled: boolean) {
-  const q = useSWR<ReadingsPage>(enabled ? `/api/cases/${caseId}/readings` : null, fetchJson, { refreshInterval: HUNT_REFRESH_MS, revalidateOnFocus: true });
+  const q = useSWR<ReadingsPage>(enabled ? readingsUrl(caseId) : null, fetchJson, { refreshInterval: HUNT_REFRESH_MS, revalidateOnFocus: true });
   const trails = useMemo(() => {
     const stored: Raw[] = (q.data?.items ?? []).map((r) => ({
       key: r.id,

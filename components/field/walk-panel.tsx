@@ -3,6 +3,7 @@
 import { useState } from 'react';
 import { NoticeBox } from '@/components/ui/notice-box';
 import { browserOffline, callApi } from '@/lib/api/client';
+import { holdAfterFailedSend } from '@/lib/field/drain';
 import { readingInputSchema } from '@/lib/validation/readings';
 import { levelLabel, S_BUTTONS } from './level-words';
 import type { PhonePosition } from './use-phone-position';
@@ -58,7 +59,7 @@ export function WalkPanel({ caseId, queue, position, positionError, tapped, defa
       if (r.ok) {
         setNote({ tone: 'info', text: `${levelLabel(level)} logged.` });
         onSaved();
-      } else if (r.status === 0) await keep();
+      } else if (holdAfterFailedSend(r.status)) await keep();
       else setNote({ tone: 'error', text: r.error });
     } finally {
       setBusy(false);

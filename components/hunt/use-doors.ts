@@ -16,15 +16,21 @@ export type PremisesTarget = { placeId: string | null; address: string; lat: num
 /** Zoom at which a single house and its number are easy to see. */
 const HOUSE_ZOOM = 18;
 
+/** The addresses the doors read for a fix (its snapshot id, or none): shared with "Prepare for the field". */
+export const doorsUrls = (caseId: string, fixId: string | null | undefined) => ({
+  candidates: `/api/cases/${caseId}/candidates?fix=${fixId ?? 'none'}`,
+  premises: `/api/cases/${caseId}/premises`,
+});
+
 /**
  * From a fix to a door: the case's candidate houses and confirmed premises, and what the map needs
  * to show them (highlight, picking a building, moving to a house). One hook for the case page and
  * the field screen.
  */
 export function useDoors(caseId: string, fix: FixView | undefined, canConfirm: boolean) {
-  const fixKey = fix?.current?.id ?? 'none';
-  const candidates = useSWR<CandidatesView>(fix ? `/api/cases/${caseId}/candidates?fix=${fixKey}` : null, fetchJson, { revalidateOnFocus: false });
-  const premises = useSWR<{ premises: Premises | null }>(`/api/cases/${caseId}/premises`, fetchJson);
+  const urls = doorsUrls(caseId, fix?.current?.id);
+  const candidates = useSWR<CandidatesView>(fix ? urls.candidates : null, fetchJson, { revalidateOnFocus: false });
+  const premises = useSWR<{ premises: Premises | null }>(urls.premises, fetchJson);
   const [target, setTarget] = useState<PremisesTarget | null>(null);
   const [focus, setFocus] = useState<MapFocus | null>(null);
 

@@ -8,15 +8,19 @@ import type { BearingView, CaseDetail, EventView, FixView } from '@/lib/hunt/vie
 /** How often open screens look for lines another hunter added (milliseconds). */
 export const HUNT_REFRESH_MS = 5000;
 
+/** The addresses the hunt screens read (the same ones "Prepare for the field" loads, so the service worker's copies match). */
+export const huntDataUrls = (caseId: string) => ({ case: `/api/cases/${caseId}`, bearings: `/api/cases/${caseId}/bearings`, fix: `/api/cases/${caseId}/fix` });
+
 /** The case, its bearings and its current fix, refreshed while the screen is open and when it regains focus. */
 export function useHuntData(caseId: string, opts: { seeHunt?: boolean } = {}) {
   const seeHunt = opts.seeHunt ?? true;
-  const caseQ = useSWR<CaseDetail>(`/api/cases/${caseId}`, fetchJson, { refreshInterval: HUNT_REFRESH_MS, revalidateOnFocus: true });
-  const bearingsQ = useSWR<Page<BearingView>>(seeHunt ? `/api/cases/${caseId}/bearings` : null, fetchJson, {
+  const urls = huntDataUrls(caseId);
+  const caseQ = useSWR<CaseDetail>(urls.case, fetchJson, { refreshInterval: HUNT_REFRESH_MS, revalidateOnFocus: true });
+  const bearingsQ = useSWR<Page<BearingView>>(seeHunt ? urls.bearings : null, fetchJson, {
     refreshInterval: HUNT_REFRESH_MS,
     revalidateOnFocus: true,
   });
-  const fixQ = useSWR<FixView>(seeHunt ? `/api/cases/${caseId}/fix` : null, fetchJson, { refreshInterval: HUNT_REFRESH_MS, revalidateOnFocus: true });
+  const fixQ = useSWR<FixView>(seeHunt ? urls.fix : null, fetchJson, { refreshInterval: HUNT_REFRESH_MS, revalidateOnFocus: true });
   const refresh = async () => {
     await Promise.all([caseQ.mutate(), bearingsQ.mutate(), fixQ.mutate()]);
   };

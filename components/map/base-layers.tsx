@@ -36,10 +36,11 @@ export function BaseLayers({ places }: { places?: PlacesHighlight }) {
       {tilesOn ? <TileLayer url={tileUrl} attribution={tileAttribution} eventHandlers={handlers} /> : <CoordinateGrid />}
       {placesAllowed && <PlacesLayer minZoom={tilesOn ? LABEL_ZOOM : PLACES_ZOOM_WITHOUT_TILES} highlight={places} />}
       <ScaleControl position="bottomleft" metric imperial={false} />
+      {/* Right-aligned and narrower than the map by the zoom buttons' room (top left), so on a phone it never covers them. */}
       {!tilesOn && (
         <p
           data-testid="tiles-off"
-          className="pointer-events-none absolute top-2 right-2 z-[1000] rounded-md border border-ink/20 bg-white/95 px-2 py-1 text-xs font-semibold text-ink"
+          className="pointer-events-none absolute top-2 right-2 z-[1000] max-w-[calc(100%_-_3.75rem)] rounded-md border border-ink/20 bg-white/95 px-2 py-1 text-xs font-semibold text-ink"
         >
           {tileUrl === '' ? 'No map tiles' : 'Map tiles did not load'}
           {placesAllowed ? ' — streets and houses from the club’s places' : ' — geometry only'}

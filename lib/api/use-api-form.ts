@@ -4,6 +4,7 @@ import { useRef, useState } from 'react';
 import { useForm, type DefaultValues, type FieldValues, type Path, type Resolver, type UseFormReturn } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
+import { holdAfterFailedSend } from '@/lib/field/drain';
 import { browserOffline, callApi, type ApiResult } from './client';
 
 /** What the form shows above its button when the server said no: its message and the issues no field took. */
@@ -29,8 +30,9 @@ export type ApiFormOptions<In extends FieldValues, Out, T> = {
   errorMap?: z.core.$ZodErrorMap;
   /**
    * The phone's offline queue (the field screen gives one): every send then carries a new
-   * `clientId`, and when there is no connection the request is handed to `hold` instead of
-   * failing, and `onHeld` runs.
+   * `clientId`, and when there is no connection (or the answer is one the queue retries: 5xx,
+   * 401, 408, 429 — lib/field/drain.ts `holdAfterFailedSend`) the request is handed to `hold`
+   * instead of failing, and `onHeld` runs.
    */
   hold?: ((url: string, body: Record<string, unknown> & { clientId: string }) => Promise<void>) | null;
   onHeld?: (values: Out) => unknown;
@@ -102,7 +104,7 @@ export function useApiForm<S extends z.ZodType<any, any, any>, T = unknown>(
     };
     if (hold && browserOffline()) return keep();
     const r = await callApi<T>(req.url, { method: req.method ?? 'POST', body: payload });
-    if (hold && !r.ok && r.status === 0) return keep();
+    if (hold && !r.ok && holdAfterFailedSend(r.status)) return keep();
     setPending(false);
     if (r.ok) {
       last.current = null;

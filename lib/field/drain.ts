@@ -62,6 +62,15 @@ export function classifyStatus(status: number): 'stored' | 'refused' | 'stopped'
   return 'stopped';
 }
 
+/**
+ * Whether a first send that did not store the item hands it to the queue instead of showing an
+ * error: no answer (status 0), or any answer the queue itself would retry (5xx, 401, 408, 429).
+ * A refusal (the other 4xx) is shown at once, while the hunter can still fix it.
+ */
+export function holdAfterFailedSend(status: number): boolean {
+  return status === 0 || classifyStatus(status) === 'stopped';
+}
+
 /** Sends every waiting item in order (see the module comment); refused items are left alone. */
 export async function drainQueue(store: QueueStore, send: (item: QueuedItem) => Promise<SendResult>): Promise<DrainReport> {
   const report: DrainReport = { sent: [], refused: [], remaining: 0 };

@@ -115,6 +115,10 @@ test('offline: the field screen reopens from the service worker, typed items wai
   expect(overlaps(figure, bar), `fix figure ${JSON.stringify(figure)} vs bar ${JSON.stringify(bar)}`).toBe(false);
   const map = (await page.getByTestId('case-map').locator('.leaflet-container').boundingBox())!;
   expect(map.height / 640).toBeGreaterThanOrEqual(0.4);
+  // The map's own note (no tiles here) never covers its zoom buttons.
+  const zoomButtons = (await page.getByTestId('case-map').locator('.leaflet-control-zoom').boundingBox())!;
+  const tilesNote = (await page.getByTestId('case-map').getByTestId('tiles-off').boundingBox())!;
+  expect(overlaps(tilesNote, zoomButtons), `note ${JSON.stringify(tilesNote)} vs zoom ${JSON.stringify(zoomButtons)}`).toBe(false);
   for (const target of [...['Add bearing', 'Sweep', 'Bearings', 'Walk', 'Sign out'].map((name) => page.getByRole('button', { name, exact: true })), page.getByTestId('nav-menu')]) {
     const box = (await target.boundingBox())!;
     expect(box.height, (await target.textContent()) ?? "").toBeGreaterThanOrEqual(48);
@@ -154,6 +158,8 @@ test('offline: the field screen reopens from the service worker, typed items wai
   await expect(page.getByText('Bearing kept on this phone')).toBeVisible();
   await expect(page.getByTestId('offline-fix')).toContainText('Not yet sent');
   await expect(page.getByTestId('offline-fix')).toContainText('3 lines, 1 of them still waiting');
+  const phoneFigure = (await page.getByTestId('offline-fix').locator('p.text-3xl').textContent())!.trim();
+  expect(phoneFigure).toMatch(/^±\d+ m$/);
 
   await page.getByRole('button', { name: 'Walk', exact: true }).click();
   await expect(page.getByTestId('walk-position')).toContainText('±6 m');
@@ -183,6 +189,10 @@ test('offline: the field screen reopens from the service worker, typed items wai
   console.log(`[field] queued 3 items (1 bearing, 2 readings), sent 3; reconnect -> all stored on the server in ${storedMs} ms`);
   info.annotations.push({ type: 'field figures', description: `queued 3, sent 3, reconnect to stored ${storedMs} ms, precache ${precache.bytes} bytes in ${precache.entries} entries` });
   await expect(page.getByTestId('offline-fix')).toHaveCount(0);
+  // The phone's fix (lib/df in the browser) was the one the server computes once the line arrives.
+  const serverFix = (await api(`/api/cases/${caseId}/fix`, { session: hunterApi })).json.current.fix;
+  expect(`±${Math.round(serverFix.ellipse.semiMajorM)} m`).toBe(phoneFigure);
+  await expect(page.getByTestId('fix-summary')).toContainText(phoneFigure);
   const readings = (await api(`/api/cases/${caseId}/readings`, { session: hunterApi })).json.items;
   expect(readings.map((r: { level: { value: number } }) => r.level.value)).toEqual([7, 9]);
 
@@ -193,21 +203,147 @@ test('offline: the field screen reopens from the service worker, typed items wai
   }
   expect(await serverCounts(hunterApi, caseId)).toEqual({ bearings: 3, readings: 2 });
 
-  // 5. A refused item: typed offline, the case is closed meanwhile, the server's reason stays on screen.
+  // 5. Refused items: typed offline, the case is closed meanwhile, the server's reason stays on screen;
+  //    one is edited and sent again once the case is back to open, the other discarded.
   await context.setOffline(true);
   await page.getByRole('button', { name: 'Walk', exact: true }).click();
-  await page.getByRole('group', { name: 'Log the level in S-units' }).getByRole('button', { name: 'S5', exact: true }).click();
+  const sButtons = page.getByRole('group', { name: 'Log the level in S-units' });
+  await sButtons.getByRole('button', { name: 'S5', exact: true }).click();
   await expect(page.getByTestId('queue-count')).toHaveText('1 waiting to send');
+  await sButtons.getByRole('button', { name: 'S4', exact: true }).click();
+  await expect(page.getByTestId('queue-count')).toHaveText('2 waiting to send');
   const now = (await api(`/api/cases/${caseId}`, { session: coordinator })).json;
   const closed = await api(`/api/cases/${caseId}/transitions`, { session: coordinator, body: { to: 'resolved', version: now.version, outcome: 'not-found', note: 'Test: closed while the hunter is offline.' } });
   expect(closed.status, closed.text).toBe(200);
   await context.setOffline(false);
-  await expect(page.getByTestId('queue-refused')).toBeVisible({ timeout: 15_000 });
-  await expect(page.getByTestId('refusal-reason')).toContainText('while it is being hunted');
-  await page.getByTestId('queue-refused').scrollIntoViewIfNeeded();
+  await expect(page.getByTestId('queue-refused')).toHaveCount(2, { timeout: 15_000 });
+  await expect(page.getByTestId('refusal-reason').first()).toContainText('while it is being hunted');
+  await page.getByTestId('queue-refused').first().scrollIntoViewIfNeeded();
   await page.screenshot({ path: `${SHOTS}/queue-refused-360.png` });
   expect((await serverCounts(hunterApi, caseId)).readings).toBe(2);
+  // Kept across a reload with the reason.
+  await page.reload();
+  await expect(page.getByTestId('queue-refused')).toHaveCount(2);
+  await expect(page.getByTestId('refusal-reason').first()).toContainText('while it is being hunted');
+  // Back to open: the S5 is corrected to S6 on screen and sent again; the S4 is discarded.
+  const resolved = (await api(`/api/cases/${caseId}`, { session: coordinator })).json;
+  const reopened = await api(`/api/cases/${caseId}/transitions`, { session: coordinator, body: { to: 'open', version: resolved.version, reason: 'Test: the hunt goes on.' } });
+  expect(reopened.status, reopened.text).toBe(200);
+  const s5 = page.getByTestId('queue-refused').filter({ hasText: 'S5' });
+  await s5.getByRole('button', { name: 'Edit' }).click();
+  await s5.getByLabel('Level (as read)').fill('6');
+  await s5.getByRole('button', { name: 'Send again' }).click();
+  await expect.poll(async () => (await serverCounts(hunterApi, caseId)).readings, { timeout: 15_000 }).toBe(3);
+  const values = (await api(`/api/cases/${caseId}/readings`, { session: hunterApi })).json.items.map((r: { level: { value: number } }) => r.level.value);
+  expect(values).toEqual([7, 9, 6]);
+  await expect(page.getByTestId('queue-refused')).toHaveCount(1);
   await page.getByTestId('queue-refused').getByRole('button', { name: 'Discard' }).click();
   await expect(page.getByTestId('queue-refused')).toHaveCount(0);
+  expect((await queuedInBrowser(page)).length).toBe(0);
+  expect((await serverCounts(hunterApi, caseId)).readings).toBe(3);
+  await context.close();
+});
+
+/** WCAG 2.2 contrast ratio (its definitions of relative luminance and contrast ratio) of an element's text against what is behind it. */
+const textContrast = (page: Page, testId: string) =>
+  page.getByTestId(testId).first().evaluate((el) => {
+    // Any CSS colour (Tailwind 4 computes oklab/oklch and color-mix) as sRGB bytes and alpha 0-1: painted on a 1-px canvas.
+    const ctx = document.createElement('canvas').getContext('2d', { willReadFrequently: true })!;
+    const rgba = (c: string): [number, number, number, number] => {
+      ctx.clearRect(0, 0, 1, 1);
+      ctx.fillStyle = c;
+      ctx.fillRect(0, 0, 1, 1);
+      const [r, g, b, a] = ctx.getImageData(0, 0, 1, 1).data;
+      return a === 0 ? [0, 0, 0, 0] : [r, g, b, a / 255];
+    };
+    const over = (top: number[], under: number[]) => top.slice(0, 3).map((v, i) => v * top[3] + under[i] * (1 - top[3]));
+    // the backgrounds from the element outwards, laid over each other (white behind everything)
+    const layers: [number, number, number, number][] = [];
+    for (let n: Element | null = el; n; n = n.parentElement) layers.push(rgba(getComputedStyle(n).backgroundColor));
+    let bg = [255, 255, 255];
+    for (const l of layers.reverse()) bg = over(l, bg);
+    const fg = over(rgba(getComputedStyle(el).color), bg);
+    const lum = (c: number[]) => {
+      const [r, g, b] = c.map((v) => v / 255).map((v) => (v <= 0.04045 ? v / 12.92 : ((v + 0.055) / 1.055) ** 2.4));
+      return 0.2126 * r + 0.7152 * g + 0.0722 * b;
+    };
+    const [a, b] = [lum(fg), lum(bg)].sort((x, y) => y - x);
+    return (a + 0.05) / (b + 0.05);
+  });
+
+test('prepare for the field: the area is kept, places come back offline for a view never shown, key figures readable', async ({ browser }, info) => {
+  test.skip(info.project.name !== 'phone-360', 'one run, at phone width');
+  test.setTimeout(120_000);
+  const hunterApi = await signIn('hunter@example.test');
+  // The demo's open case, whose fix lies among the demo town's houses (db/seeds/demo.ts, demo-town.ts).
+  const caseId: string = ((await api('/api/cases?q=Rasping', { session: hunterApi })).json.items as { id: string; title: string }[]).find((c) => c.title === 'Rasping hash on 80 m and 40 m in the evenings')!.id;
+  const fix = (await api(`/api/cases/${caseId}/fix`, { session: hunterApi })).json.current.fix;
+  expect(fix.ok).toBe(true);
+
+  const context = await browser.newContext({ viewport: { width: 360, height: 640 }, isMobile: true, hasTouch: true });
+  const page = await context.newPage();
+  await signInPage(page, 'hunter@example.test');
+  await page.goto(`/cases/${caseId}/field`);
+  await page.evaluate(async () => {
+    await navigator.serviceWorker.ready;
+  });
+  await page.reload();
+  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller)).toBe(true);
+  await expect(page.getByTestId('fix-summary')).toContainText('±');
+  await expect(page.getByTestId('case-map').locator('.qf-building').first()).toBeAttached({ timeout: 20_000 });
+
+  // Sunlight: the key figures (the fix in the bar and in the summary) at 7:1 or better (WCAG 2.2 level AAA, 1.4.6).
+  for (const id of ['bar-fix', 'fix-summary']) {
+    const ratio = await textContrast(page, id);
+    console.log(`[field] contrast of ${id}: ${ratio.toFixed(1)}:1`);
+    expect(ratio, id).toBeGreaterThanOrEqual(7);
+  }
+
+  // The issue's own example: "±151 m" in the bar beside the actions, nothing overlapping, each label on one line.
+  const barFix = (await page.getByTestId('bar-fix').boundingBox())!;
+  const actions = [page.getByRole('button', { name: 'Add bearing', exact: true }), page.getByRole('button', { name: 'Sweep', exact: true })];
+  const boxes = [barFix];
+  for (const b of actions) {
+    const box = (await b.boundingBox())!;
+    const lineHeight = await b.evaluate((el) => parseFloat(getComputedStyle(el).lineHeight));
+    const textHeight = await b.evaluate((el) => {
+      const r = document.createRange();
+      r.selectNodeContents(el);
+      return r.getBoundingClientRect().height;
+    });
+    expect(textHeight, `${await b.textContent()} on one line`).toBeLessThan(lineHeight * 1.5);
+    expect(box.x + box.width).toBeLessThanOrEqual(360);
+    boxes.push(box);
+  }
+  for (let i = 0; i < boxes.length; i++) for (let j = i + 1; j < boxes.length; j++) expect(overlaps(boxes[i], boxes[j]), `bar items ${i} and ${j}`).toBe(false);
+  console.log(`[field] bar at 360 px: fix figure "${(await page.getByTestId('bar-fix').locator('span').first().textContent())}"`);
+
+  await page.getByTestId('prepare-area').click();
+  await expect(page.getByTestId('prepare-result')).toContainText('Case, lines, walk and places kept on this phone.', { timeout: 30_000 });
+  await expect(page.getByTestId('prepare-result')).toContainText('Storage used by Quietfix on this phone:');
+  await page.getByTestId('prepare-result').scrollIntoViewIfNeeded();
+  await page.screenshot({ path: `${SHOTS}/prepare-360.png` });
+
+  // Offline: a places box inside the kept area that no screen asked for (200 m east of the fix, 300 m a side).
+  await context.setOffline(true);
+  const dLat = 150 / 111_320;
+  const dLon = 150 / (111_320 * Math.cos((fix.lat * Math.PI) / 180));
+  const east = 200 / (111_320 * Math.cos((fix.lat * Math.PI) / 180));
+  const bbox = [fix.lon + east - dLon, fix.lat - dLat, fix.lon + east + dLon, fix.lat + dLat].map((v: number) => v.toFixed(6)).join(',');
+  const offline = await page.evaluate(async (b) => {
+    const res = await fetch(`/api/places?bbox=${b}`);
+    const body = await res.json();
+    return { status: res.status, storedAt: res.headers.get('x-quietfix-stored-at'), features: body.features.length as number };
+  }, bbox);
+  expect(offline.status).toBe(200);
+  expect(offline.storedAt).toBeTruthy();
+  expect(offline.features).toBeGreaterThan(0);
+
+  // And the screen itself, reloaded offline: lines, fix and the places layer, saying what it shows.
+  await page.reload();
+  await expect(page.getByTestId('fix-summary')).toContainText('±');
+  await expect(page.getByTestId('offline-copy')).toContainText('Showing what was last loaded at');
+  await expect(page.getByTestId('case-map').locator('.qf-bearing').first()).toBeAttached();
+  await expect(page.getByTestId('case-map').locator('.qf-building').first()).toBeAttached({ timeout: 20_000 });
   await context.close();
 });

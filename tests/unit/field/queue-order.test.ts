@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { classifyStatus, drainQueue, inSendingOrder, type QueuedItem, type QueueStore, type SendResult } from '@/lib/field/drain';
+import { classifyStatus, drainQueue, holdAfterFailedSend, inSendingOrder, type QueuedItem, type QueueStore, type SendResult } from '@/lib/field/drain';
 
 function memoryStore(items: QueuedItem[]): QueueStore & { items: Map<string, QueuedItem> } {
   const map = new Map(items.map((i) => [i.clientId, i]));
@@ -102,5 +102,12 @@ describe('classifyStatus', () => {
     expect([200, 201].map(classifyStatus)).toEqual(['stored', 'stored']);
     expect([400, 403, 404, 409, 413, 422].map(classifyStatus)).toEqual(Array(6).fill('refused'));
     expect([0, 401, 408, 429, 500, 503].map(classifyStatus)).toEqual(Array(6).fill('stopped'));
+  });
+});
+
+describe('holdAfterFailedSend', () => {
+  it('a first send with no answer or a retryable one goes to the queue; a refusal is shown at once; stored is not held', () => {
+    expect([0, 401, 408, 429, 500, 502, 503, 504].map(holdAfterFailedSend)).toEqual(Array(8).fill(true));
+    expect([200, 201, 400, 403, 404, 409, 413, 422].map(holdAfterFailedSend)).toEqual(Array(8).fill(false));
   });
 });

@@ -200,7 +200,7 @@ export function FieldScreen({ caseId }: { caseId: string }) {
       {!canHunt && <p className="text-ink-soft">You can follow this hunt but not add bearings to it.</p>}
       <BearingList caseId={caseId} bearings={bearings ?? []} outlierIds={outlierIds} canEdit={canHunt} refresh={refresh} />
 
-      {canHunt && <PrepareArea caseId={caseId} centre={f && f.ok ? { lat: f.lat, lon: f.lon } : (caseDetail.reportedPosition ?? null)} />}
+      {canHunt && <PrepareArea caseId={caseId} fixId={fix?.current?.id} centre={f && f.ok ? { lat: f.lat, lon: f.lon } : (caseDetail.reportedPosition ?? null)} />}
 
       <p className="text-sm text-ink-soft">
         Public ground only · never touch or climb utility hardware · never confront anyone · local law and the regulator decide.{' '}
@@ -214,10 +214,11 @@ export function FieldScreen({ caseId }: { caseId: string }) {
             <FixFigure fix={fix} waiting={queue.waiting.length} />
             {mode === 'bearings' ? (
               <>
-                <button type="button" className="btn-primary min-h-14 flex-[2] text-lg" onClick={() => setSheet('bearing')}>
+                {/* A 360-px phone: "±151 m" beside "Add bearing" and "Sweep", each label on one line. */}
+                <button type="button" className="btn-primary min-h-14 flex-1 px-3 text-base sm:text-lg" onClick={() => setSheet('bearing')}>
                   Add bearing
                 </button>
-                <button type="button" className="btn-quiet min-h-14 flex-1 text-lg" onClick={() => setSheet('sweep')}>
+                <button type="button" className="btn-quiet min-h-14 flex-none px-3 text-base sm:text-lg" onClick={() => setSheet('sweep')}>
                   Sweep
                 </button>
               </>
