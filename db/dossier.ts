@@ -6,7 +6,6 @@ export async function dossierNotices(caseId: string, q: Knex = db) {
   const notices = await q('notices')
     .select({ id: 'id', templateKey: 'template_key', status: 'status', postalAddress: 'postal_address', sentAt: 'sent_at', deliveredOn: 'delivered_on', createdAt: 'created_at' })
     .where({ case_id: caseId })
-    .whereNot('status', 'cancelled')
     .orderBy('created_at');
   const answers = notices.length
     ? await q('notice_answers').select({ noticeId: 'notice_id', kind: 'kind', message: 'message', createdAt: 'created_at' }).whereIn('notice_id', notices.map((n) => n.id)).orderBy('id')

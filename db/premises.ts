@@ -47,7 +47,7 @@ export async function savePremises(
 export const SAME_PREMISES_M = 8;
 
 /**
- * Other unresolved cases with a live notice to the same household as this case's confirmed
+ * Other unresolved cases with a notice to the same household as this case's confirmed
  * premises: the same building from the places layer when known, else premises within
  * SAME_PREMISES_M metres.
  */
@@ -59,7 +59,7 @@ export async function noticesAtPremisesElsewhere(caseId: string, q: Knex = db): 
             and (case when mine.place_id is not null and other.place_id is not null then other.place_id = mine.place_id
                       else ST_DWithin(other.geog, mine.geog, ?) end)
        join cases c on c.id = other.case_id and c.status <> 'resolved'
-       join notices n on n.case_id = c.id and n.status <> 'cancelled'
+       join notices n on n.case_id = c.id
       where mine.case_id = ?
       order by c.id, n.created_at desc`,
     [SAME_PREMISES_M, caseId],

@@ -1,9 +1,11 @@
 'use client';
 
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import Link from 'next/link';
-import { callApi } from '@/lib/api/client';
-import { NoticeBox } from '@/components/ui/notice-box';
+import { FieldError } from '@/components/ui/field-error';
+import { FormProblemBox } from '@/components/ui/form-problem';
+import { useApiForm } from '@/lib/api/use-api-form';
+import { premisesSchema } from '@/lib/validation/places';
 import { ChoiceButtons } from './choice-buttons';
 import { formatLatLon } from './format-position';
 import type { Doors } from './use-doors';
@@ -100,58 +102,83 @@ export function DoorsSection({ doors, canConfirm, point, onConfirmed }: { doors:
 
 function PremisesForm({ caseId, doors, point, onDone }: { caseId: string; doors: Doors; point?: { lat: number; lon: number } | null; onDone?: () => void }) {
   const target = doors.target!;
-  const [address, setAddress] = useState(target.address);
-  const [how, setHow] = useState<How | undefined>(undefined);
-  const [note, setNote] = useState('');
-  const [problem, setProblem] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
   const at = target.placeId ? null : (point ?? (target.lat !== null && target.lon !== null ? { lat: target.lat, lon: target.lon } : null));
-
-  async function save() {
-    setBusy(true);
-    setProblem(null);
-    const body = target.placeId ? { placeId: target.placeId, address: address || undefined, how, note } : { address, lat: at?.lat, lon: at?.lon, how, note };
-    const r = await callApi(`/api/cases/${caseId}/premises`, { method: 'PUT', body });
-    setBusy(false);
-    if (!r.ok) return setProblem([r.error, ...(r.issues ?? []).map((i) => i.message)].join(' '));
-    doors.setTarget(null);
-    await doors.refreshPremises();
-    onDone?.();
-  }
+  // The one form hook: the handler's schema checks in the browser, the server's issues land on
+  // the address, the map point or the choice they name (a building that vanished goes to the form).
+  const { form, submit, problem, pending } = useApiForm(premisesSchema, {
+    defaultValues: { placeId: target.placeId ?? undefined, address: target.address, lat: at?.lat, lon: at?.lon, how: undefined, note: '' },
+    request: (v) => ({
+      url: `/api/cases/${caseId}/premises`,
+      method: 'PUT',
+      body: v.placeId ? { placeId: v.placeId, address: v.address || undefined, how: v.how, note: v.note } : { address: v.address, lat: v.lat, lon: v.lon, how: v.how, note: v.note },
+    }),
+    fieldFor: (path) => (path === 'lon' ? 'lat' : ['address', 'lat', 'how', 'note'].includes(path) ? path : null),
+    onSuccess: async () => {
+      doors.setTarget(null);
+      await doors.refreshPremises();
+      onDone?.();
+    },
+  });
+  const { errors } = form.formState;
+  // A tap on the map moves the point the form sends.
+  useEffect(() => {
+    form.setValue('lat', at?.lat);
+    form.setValue('lon', at?.lon);
+    if (at) form.clearErrors('lat');
+  }, [at?.lat, at?.lon]); // eslint-disable-line react-hooks/exhaustive-deps -- the point's numbers, not the object
+  const how = form.watch('how') as How | undefined;
 
   return (
     <form
       className="card space-y-3"
       aria-label="Confirm the premises"
-      onSubmit={(e) => {
-        e.preventDefault();
-        void save();
-      }}
+      noValidate
+      onSubmit={submit}
     >
       <p className="font-bold">Confirm the premises</p>
-      {problem && <NoticeBox tone="error">{problem}</NoticeBox>}
+      <FormProblemBox problem={problem} />
       <div>
         <label htmlFor="premises-address" className="label">
           Address
         </label>
-        <input id="premises-address" className="field" value={address} onChange={(e) => setAddress(e.target.value)} maxLength={300} autoComplete="off" />
-        <p className="mt-1 text-sm text-ink-soft">
+        <input
+          id="premises-address"
+          className="field"
+          maxLength={300}
+          autoComplete="off"
+          aria-invalid={!!errors.address}
+          aria-describedby={['premises-address-hint', errors.address ? 'premises-address-error' : '', errors.lat ? 'premises-point-error' : ''].filter(Boolean).join(' ')}
+          {...form.register('address')}
+        />
+        <FieldError id="premises-address-error" message={errors.address?.message} />
+        <p id="premises-address-hint" className="mt-1 text-sm text-ink-soft">
           {target.placeId
             ? 'The building you picked; correct the address if it is incomplete.'
             : at
               ? `At ${formatLatLon(at.lat, at.lon)} (the point tapped on the map).`
               : 'Tap the map where the premises are, then type the address.'}
         </p>
+        <FieldError id="premises-point-error" message={errors.lat?.message} />
       </div>
-      <ChoiceButtons legend="How did you confirm it?" name="premises-how" options={HOW} value={how} onChange={setHow} />
+      <div>
+        <ChoiceButtons
+          legend="How did you confirm it?"
+          name="premises-how"
+          options={HOW}
+          value={how}
+          onChange={(v) => form.setValue('how', v, { shouldValidate: form.formState.isSubmitted })}
+        />
+        <FieldError id="premises-how-error" message={errors.how?.message} />
+      </div>
       <div>
         <label htmlFor="premises-note" className="label">
           Note (optional)
         </label>
-        <textarea id="premises-note" rows={2} className="field" value={note} maxLength={1000} onChange={(e) => setNote(e.target.value)} />
+        <textarea id="premises-note" rows={2} className="field" maxLength={1000} aria-invalid={!!errors.note} {...form.register('note')} />
+        <FieldError id="premises-note-error" message={errors.note?.message} />
       </div>
       <div className="flex flex-wrap gap-2">
-        <button type="submit" className="btn-primary" disabled={busy}>
+        <button type="submit" className="btn-primary" disabled={pending}>
           Save the premises
         </button>
         <button type="button" className="btn-quiet" onClick={() => doors.setTarget(null)}>

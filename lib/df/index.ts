@@ -5,6 +5,7 @@ export { normalizeFix } from './normalize-fix';
 export { declinationDeg } from './declination-deg';
 export { declinationInfo } from './declination-info';
 export { magneticToTrue } from './magnetic-to-true';
+export { normalizeDeg360 } from './internal/angles';
 export { dateToDecimalYear } from './date-to-decimal-year';
 export { decimalYearToDate } from './decimal-year-to-date';
 export { fitNullSweep } from './fit-null-sweep';

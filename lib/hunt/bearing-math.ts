@@ -2,14 +2,11 @@
  * The pure part of storing a bearing, shared by the server (lib/hunt/bearings.ts) and the phone
  * (the offline fix from queued lines): its 1-sigma and its true azimuth. No db, no next/*.
  */
-import { declinationInfo, magneticToTrue, NULL_SIGMA_PRESETS_DEG, nullWidthToSigmaDeg, type LineOfBearing, type NextSpotOptions } from '@/lib/df';
+import { declinationInfo, magneticToTrue, normalizeDeg360, NULL_SIGMA_PRESETS_DEG, nullWidthToSigmaDeg, type LineOfBearing, type NextSpotOptions } from '@/lib/df';
 
 type SigmaInput = { sigmaDeg?: number; nullWidthDeg?: number; quality?: 'sharp' | 'fair' | 'broad' };
 
 export const round = (x: number, places = 6) => Math.round(x * 10 ** places) / 10 ** places;
-
-/** An entered azimuth folded into [0, 360) (lib/df folds the same way inside magneticToTrue; it exports no fold of its own). */
-export const foldDeg = (deg: number) => ((deg % 360) + 360) % 360;
 
 /** 1-sigma in degrees: stated, else half the measured null width, else the sharp/fair/broad preset (default fair). */
 export function resolveSigmaDeg(i: SigmaInput): number {
@@ -24,7 +21,7 @@ export function resolveSigmaDeg(i: SigmaInput): number {
  * outside it; fixView repeats that warning for every magnetic line it applies to.
  */
 export function trueAzimuth(enteredDeg: number, reference: 'true' | 'magnetic', lat: number, lon: number, when: Date) {
-  if (reference === 'true') return { declinationDeg: 0, azimuthTrueDeg: foldDeg(enteredDeg) };
+  if (reference === 'true') return { declinationDeg: 0, azimuthTrueDeg: normalizeDeg360(enteredDeg) };
   const { declinationDeg, warning } = declinationInfo(lat, lon, when);
   return { declinationDeg: round(declinationDeg, 3), azimuthTrueDeg: round(magneticToTrue(enteredDeg, lat, lon, when)), ...(warning ? { warning } : {}) };
 }

@@ -4,8 +4,8 @@ import { findBearingByClientId, insertBearing, reviseBearing, type BearingFields
 import { appendEvent } from '@/db/cases';
 import { getProfile } from '@/db/users';
 import type { CaseRow, ClubSettings, User } from '@/db/types';
-import { fitNullSweep, sUnitsToDbm } from '@/lib/df';
-import { foldDeg, resolveSigmaDeg, round, trueAzimuth } from './bearing-math';
+import { fitNullSweep, normalizeDeg360, sUnitsToDbm } from '@/lib/df';
+import { resolveSigmaDeg, round, trueAzimuth } from './bearing-math';
 import { AppError, conflict, forbidden } from '@/lib/errors';
 import type { bearingInputSchema, bearingPatchSchema, sweepInputSchema } from '@/lib/validation/bearings';
 import { caseAccess } from './access';
@@ -54,7 +54,7 @@ async function saveNewBearing(
     lon: p.lon,
     positionSource: p.positionSource,
     positionAccuracyM: p.positionAccuracyM ?? null,
-    azimuthEnteredDeg: foldDeg(line.enteredDeg),
+    azimuthEnteredDeg: normalizeDeg360(line.enteredDeg),
     reference: line.reference,
     declinationDeg: az.declinationDeg,
     azimuthTrueDeg: az.azimuthTrueDeg,
@@ -166,7 +166,7 @@ export async function editBearing(
     ...rest,
     takenAt,
     excluded,
-    ...(geometryChanged ? { azimuthEnteredDeg: foldDeg(entered), ...pickStored(trueAzimuth(entered, reference, lat, lon, new Date(takenAt))) } : {}),
+    ...(geometryChanged ? { azimuthEnteredDeg: normalizeDeg360(entered), ...pickStored(trueAzimuth(entered, reference, lat, lon, new Date(takenAt))) } : {}),
     ...(sigmaChanged ? { sigmaDeg: resolveSigmaDeg({ quality, sigmaDeg, nullWidthDeg }), nullWidthDeg: nullWidthDeg ?? null } : {}),
   };
   await reviseBearing(trx, before, user.id, fields);

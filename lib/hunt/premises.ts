@@ -1,12 +1,12 @@
 import type { Knex } from 'knex';
-import { appendEvent, lockCase } from '@/db/cases';
+import { appendEvent } from '@/db/cases';
 import { getPlace } from '@/db/places';
 import { savePremises, type PremisesHow } from '@/db/premises';
 import type { User } from '@/db/types';
-import { badRequest, forbidden, notFound } from '@/lib/errors';
+import { badRequest, forbidden } from '@/lib/errors';
 import type { premisesSchema } from '@/lib/validation/places';
 import type { z } from 'zod';
-import { caseAccess } from './access';
+import { lockVisibleCase } from './case-detail';
 
 export const HOW_WORDS: Record<PremisesHow, string> = {
   'level-peak': 'the level peaked there walking past on public ground',
@@ -20,9 +20,7 @@ export const HOW_WORDS: Record<PremisesHow, string> = {
  * committee-only comment that counts as the confirmation a coordinator can locate the case by.
  */
 export async function confirmPremises(trx: Knex.Transaction, me: User, caseId: string, input: z.output<typeof premisesSchema>): Promise<void> {
-  const row = await lockCase(trx, caseId);
-  const access = row && caseAccess(me, row);
-  if (!row || !access?.view) throw notFound('No such case.');
+  const { access } = await lockVisibleCase(trx, me, caseId);
   if (!access.hunt) throw forbidden('Only the assigned hunter or the committee can confirm the premises of a case being hunted.');
   let placeId: string | null = null;
   let { address, lat, lon } = input;

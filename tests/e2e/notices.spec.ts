@@ -108,3 +108,43 @@ test('the response page reads well on a 360-px phone', async ({ page }, info) =>
     expect(overflow).toBeLessThanOrEqual(0);
   }
 });
+
+/**
+ * The letter editor on the one form hook: a subject the handler's schema refuses is marked on the
+ * field and nothing is sent; a good one is saved (and put back afterwards through the API).
+ */
+test('an admin edits a letter: a too-short subject is marked on its field, a good one is saved', async ({ page }, info) => {
+  test.skip(info.project.name !== 'desktop', 'the editor does not depend on the screen');
+  await signInPage(page, 'chair@example.test');
+  const headers = { origin: new URL(page.url()).origin };
+  const original = await (await page.request.get('/api/templates/utility-referral')).json();
+  const puts: string[] = [];
+  page.on('request', (r) => {
+    if (r.method() === 'PUT' && r.url().includes('/api/templates/')) puts.push(r.url());
+  });
+  try {
+    await page.goto('/admin/templates');
+    await page.getByLabel('Letter', { exact: true }).selectOption('utility-referral');
+    const subject = page.getByLabel('Subject');
+    await expect(subject).toHaveValue(original.subject);
+    await subject.fill('No');
+    await page.getByRole('button', { name: 'Save letter' }).click();
+    await expect(subject).toHaveAttribute('aria-invalid', 'true');
+    await expect(page.locator('#template-subject-error')).toHaveText('Give a subject.');
+    expect(puts).toEqual([]);
+
+    await subject.fill(`${original.subject} (checked)`);
+    await page.getByRole('button', { name: 'Save letter' }).click();
+    await expect(page.getByText('Saved. Notices approved from now on use this text.')).toBeVisible();
+    await expect(subject).not.toHaveAttribute('aria-invalid', 'true');
+    expect(puts).toHaveLength(1);
+    const stored = await (await page.request.get('/api/templates/utility-referral')).json();
+    expect(stored.subject).toBe(`${original.subject} (checked)`);
+    expect(stored.version).toBe(original.version + 1);
+  } finally {
+    const now = await (await page.request.get('/api/templates/utility-referral')).json();
+    if (now.subject !== original.subject) {
+      await page.request.put('/api/templates/utility-referral', { headers, data: { version: now.version, subject: original.subject, body: original.body } });
+    }
+  }
+});

@@ -60,7 +60,11 @@ test('a hunter sees house numbers inside the region, confirms the premises, and 
   await first.getByRole('button', { name: 'Confirmed here…' }).click();
   const form = hunter.getByRole('form', { name: 'Confirm the premises' });
   await expect(form.getByLabel('Address')).toHaveValue(address);
+  // The form checks with the handler's schema first: without the "how", nothing is sent and the choice says why.
+  await form.getByRole('button', { name: 'Save the premises' }).click();
+  await expect(form.locator('#premises-how-error')).toHaveText('Say how the premises were confirmed.');
   await form.getByText('Level peaked').click();
+  await expect(form.locator('#premises-how-error')).toHaveCount(0);
   await form.getByLabel('Note (optional)').fill('Loudest at the front fence, from the pavement.');
   await form.getByRole('button', { name: 'Save the premises' }).click();
   await expect(hunter.getByTestId('premises')).toContainText(address);

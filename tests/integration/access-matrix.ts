@@ -14,6 +14,8 @@ export type Row = {
   contentType?: RegExp;
   /** keys that must appear nowhere in these callers' answers (checked at any depth) */
   hidden?: { from: Who[]; keys: string[] };
+  /** the route reads a body that is not JSON (a CSV upload: `route({ body: 'raw' })`); a string body is sent as it is */
+  rawBody?: boolean;
 };
 
 const ALL_SIGNED_IN = { anon: 401, admin: 200, coordinator: 200, hunter: 200, member: 200 };
@@ -26,6 +28,8 @@ const COMMITTEE_BAD_BODY = { anon: 401, admin: 400, coordinator: 400, hunter: 40
 const COMMITTEE_READ = { anon: 401, admin: 200, coordinator: 200, hunter: 403, member: 403 };
 /** Allowed to look, and the thing looked for does not exist. */
 const ALL_SIGNED_IN_NOT_FOUND = { anon: 401, admin: 404, coordinator: 404, hunter: 404, member: 404 };
+/** Public routes (no session needed): everyone, signed in or not, gets the same answer. */
+const EVERYONE = (status: number) => ({ anon: status, admin: status, coordinator: status, hunter: status, member: status });
 const NO_FILE = '00000000-0000-4000-8000-00000000f11e';
 /** A household's details and the other-case warning: the committee's only (the hunter sees a notice exists and its status). */
 const RECIPIENT_DETAILS = { from: ['hunter'] as Who[], keys: ['recipientName', 'postalAddress', 'email', 'personalNote', 'answers', 'delivery', 'sameAddressElsewhere', 'responseLink', 'link'] };
@@ -57,6 +61,10 @@ export const ACCESS: Row[] = [
   },
   { name: 'caught mail', method: 'GET', path: () => '/api/mail/messages', expect: ADMIN_ONLY },
   { name: 'change own password', method: 'POST', path: () => '/api/password/change', body: () => ({}), expect: ALL_SIGNED_IN_BAD_BODY },
+  // The signed-out account routes. A bad address is refused before the reset limit counts it, so
+  // these rows spend none of the per-client allowance the account tests measure.
+  { name: 'ask for a reset link', method: 'POST', path: () => '/api/password/forgot', body: () => ({ email: 'not an address' }), expect: EVERYONE(400) },
+  { name: 'set a password from a link', method: 'POST', path: () => '/api/password', body: () => ({ token: 'x'.repeat(43), password: 'a long password', confirm: 'a long password' }), expect: EVERYONE(404) },
   {
     name: 'compute a fix',
     method: 'POST',
@@ -77,6 +85,15 @@ export const ACCESS: Row[] = [
   { name: 'list bearings', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/bearings`, expect: HUNT_READ },
   { name: 'add a bearing', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/bearings`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
   { name: 'edit a bearing', method: 'PATCH', path: (ids) => `/api/cases/${ids.openCase}/bearings/${ids.openBearing}`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
+  {
+    // A CSV body; the header lacks the required columns, so an allowed caller gets the 400 that lists them.
+    name: 'import bearings from CSV',
+    method: 'POST',
+    path: (ids) => `/api/cases/${ids.openCase}/bearings/import`,
+    body: () => 'not,a,bearings,file\n1,2,3,4\n',
+    rawBody: true,
+    expect: HUNT_WRITE_BAD_BODY,
+  },
   { name: 'add a sweep', method: 'POST', path: (ids) => `/api/cases/${ids.openCase}/sweeps`, body: () => ({}), expect: HUNT_WRITE_BAD_BODY },
   { name: 'read the fix', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/fix`, expect: HUNT_READ },
   { name: 'list level readings', method: 'GET', path: (ids) => `/api/cases/${ids.openCase}/readings`, expect: HUNT_READ },

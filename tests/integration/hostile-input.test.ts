@@ -14,6 +14,7 @@ import { deriveToken } from '@/lib/notices/token';
 import { api, APP_ORIGIN, BASE_URL, signIn, type Session } from '../support/http';
 import { dbState } from '../support/db-state';
 import { noiseReport } from '../support/fixtures';
+import { gpxOf, iso, walk } from '../support/survey';
 
 let chair: Session, coordinator: Session, member: Session;
 const ids: Record<string, string> = {};
@@ -56,6 +57,14 @@ const TARGETS: Target[] = [
   { name: 'set a password', method: 'POST', path: () => '/api/password', who: () => undefined, body: () => ({ token: 'T'.repeat(43), password: 'a long password', confirm: 'a long password' }), text: ['token', 'password', 'confirm'] },
   { name: 'answer a notice', method: 'POST', path: () => `/api/r/${ids.token}/answers`, who: () => undefined, body: () => ({ kind: 'contact-me', message: 'Happy to help.', contact: 'house@example.test' }), text: ['kind', 'message', 'contact'] },
   { name: 'add a level reading', method: 'POST', path: () => `/api/cases/${ids.case}/readings`, who: () => coordinator, body: () => ({ clientId: randomUUID(), lat: -31.4, lon: 129.31, accuracyM: 6, level: { unit: 'S', value: 7 }, frequencyKhz: 7100, takenAt: '2026-12-02T05:00:00Z', note: 'By the gate.' }), text: ['note', 'takenAt', 'clientId', 'level.unit'], other: ['lat', 'level.value', 'accuracyM'] },
+  // The routes later issues added (evidence, the committee's week): the same boundary holds for them.
+  { name: 'import a walked survey', method: 'POST', path: () => `/api/cases/${ids.case}/readings/import`, who: () => coordinator, body: () => ({ gpx: gpxOf(walk), csv: `time,level\n${iso(10)},5\n`, toleranceS: 5, frequencyKhz: 7100 }), text: ['gpx', 'csv'], other: ['toleranceS', 'frequencyKhz'] },
+  { name: 'log a level', method: 'POST', path: () => `/api/cases/${ids.case}/levels`, who: () => coordinator, body: () => ({ clientId: randomUUID(), frequencyKhz: 7100, level: { unit: 'S', value: 6 }, bandwidthHz: 2400, takenAt: '2026-12-02T05:00:00Z', phase: 'before' }), text: ['clientId', 'takenAt', 'phase', 'level.unit'], other: ['frequencyKhz', 'bandwidthHz', 'level.value'] },
+  { name: 'confirm the premises', method: 'PUT', path: () => `/api/cases/${ids.case}/premises`, who: () => coordinator, body: () => ({ address: '5 Fuzz Lane, Quillon', lat: -31.45, lon: 129.36, how: 'level-peak', note: 'Peak at the gate.' }), text: ['address', 'note', 'how'], other: ['lat'] },
+  { name: 'ask to upload a file', method: 'POST', path: () => `/api/cases/${ids.case}/files`, who: () => member, body: () => ({ name: 'hum at the gate.wav', size: 48_000, contentType: 'audio/wav' }), text: ['name', 'contentType'], other: ['size'] },
+  { name: 'save a queue view', method: 'POST', path: () => '/api/saved-filters', who: () => coordinator, body: () => ({ name: 'Open on 40 m', query: 'status=open&band=40m' }), text: ['name', 'query'] },
+  { name: 'bulk assign', method: 'POST', path: () => '/api/cases/bulk-assign', who: () => coordinator, body: () => ({ caseIds: [ids.case], assigneeId: ids.hunter }), text: ['caseIds.0', 'assigneeId'], other: ['caseIds'] },
+  { name: 'change club settings', method: 'PATCH', path: () => '/api/settings', who: () => chair, body: () => ({ clubName: 'Quillon Radio Circle', contactEmail: 'committee@example.test', noiseEnvironment: 'rural', reminderDays: 10 }), text: ['clubName', 'contactEmail', 'noiseEnvironment'], other: ['reminderDays', 'locateThresholdM'] },
 ];
 
 /** Characters no free-text field may hold: NUL, the other C0 controls but tab and newlines, DEL, and lone surrogate halves. */
@@ -117,11 +126,13 @@ const watched = () => ({
   notices: [ids.notice, ids.approved],
   users: [ids.member],
   'notice_templates.key': ['first-notice'],
+  club_settings: ['1'],
 });
 
 beforeAll(async () => {
   [chair, coordinator, member] = await Promise.all(['chair', 'coordinator', 'member'].map((w) => signIn(`${w}@example.test`)));
   ids.member = (await api('/api/auth/session', { session: member })).json.user.id;
+  ids.hunter = (await db('users').where({ email: 'hunter@example.test' }).first('id')).id;
   const filed = await api('/api/cases', { session: member, body: { ...TARGETS[0].body(), title: 'Fuzz target case', position: { lat: -31.45, lon: 129.36, source: 'map' } } });
   expect(filed.status, filed.text).toBe(201);
   ids.case = filed.json.case.id;
@@ -212,7 +223,7 @@ describe('random hostile input (fast-check, bounded)', () => {
     );
     await fc.assert(
       fc.asyncProperty(fc.constantFrom(...fields), value, async ({ t, field }, v) => {
-        // null is a legal value for the nullable call sign and assignee
+        // null is a legal value for the nullable call sign and assignee (a bulk unassignment, too)
         fc.pre(!(v === null && ['callSign', 'assigneeId'].includes(field)));
         expectRefused(await send(t, setPath(t.body(), field, v)), `${t.name}: ${field} = ${JSON.stringify(v).slice(0, 60)}`);
       }),

@@ -11,7 +11,7 @@ let chair: Session, coordinator: Session, member: Session;
 let memberId: string, hunterId: string;
 
 /** A row without the columns every write bumps. */
-async function stored(table: string, id: string, drop: string[] = []) {
+async function stored(table: string, id: string | number, drop: string[] = []) {
   const row = await db(table).where({ id }).first();
   // bookkeeping every write moves (last_activity_at: the queue's sort key, kept by a trigger)
   for (const k of ['version', 'updated_at', 'last_activity_at', ...drop]) delete row[k];
@@ -98,6 +98,26 @@ describe('PATCH changes only what it names', () => {
     } finally {
       const { email: _e, role: _r, loopCircumferenceM: _c, ...restore } = original;
       await api('/api/profile', { method: 'PATCH', session: member, body: restore });
+    }
+  });
+
+  it('club settings: one setting alone keeps every other one', async () => {
+    const original = (await api('/api/settings', { session: chair })).json.settings;
+    // Every setting away from its default first, so a write that fell back to defaults would show.
+    const full = { clubName: 'Quillon Partial Circle', contactEmail: 'partial-committee@example.test', locateThresholdM: 60, reminderDays: 9, maxPositionAccuracyM: 25, noiseEnvironment: 'rural', uploadMaxMb: 20 };
+    expect((await api('/api/settings', { method: 'PATCH', session: chair, body: full })).status).toBe(200);
+    try {
+      const before = await stored('club_settings', 1, ['reminder_days']);
+      const r = await api('/api/settings', { method: 'PATCH', session: chair, body: { reminderDays: 11 } });
+      expect(r.status, r.text).toBe(200);
+      expect(r.json.settings).toEqual({ ...full, reminderDays: 11 });
+      expect(Object.keys(r.json.changes)).toEqual(['reminderDays']);
+      expect(await stored('club_settings', 1, ['reminder_days'])).toEqual(before);
+      expect(before).toMatchObject({ club_name: 'Quillon Partial Circle', contact_email: 'partial-committee@example.test', noise_environment: 'rural', upload_max_mb: 20 });
+    } finally {
+      // (an empty contact address is the unsaved default, which the patch schema does not take back)
+      const { contactEmail, ...rest } = original;
+      await api('/api/settings', { method: 'PATCH', session: chair, body: contactEmail ? original : rest });
     }
   });
 

@@ -2,7 +2,10 @@
 import { db } from '@/db';
 
 /** Tables requests write to (the outbox and sign-in failures change on their own: left out). */
-const TABLES = ['users', 'club_settings', 'cases', 'case_events', 'user_tokens', 'bearings', 'bearing_revisions', 'fix_snapshots', 'level_readings', 'notice_templates', 'notices', 'notice_answers'];
+const TABLES = [
+  'users', 'club_settings', 'club_settings_events', 'cases', 'case_events', 'user_tokens', 'bearings', 'bearing_revisions', 'fix_snapshots',
+  'level_readings', 'case_levels', 'case_premises', 'case_files', 'saved_filters', 'notice_templates', 'notices', 'notice_answers',
+];
 
 export async function rowCounts(): Promise<Record<string, number>> {
   const { rows } = await db.raw(TABLES.map((t) => `select '${t}' as t, count(*)::int as n from ${t}`).join(' union all '));

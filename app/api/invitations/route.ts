@@ -17,7 +17,9 @@ export const POST = route(async (req) => {
   if (me.role === 'coordinator' && (input.role === 'admin' || input.role === 'coordinator')) {
     throw forbidden('Coordinators can invite hunters and members; ask an admin for other roles.');
   }
-  const club = await getClubSettings();
-  await inTransaction((trx) => createInvitation(trx, { ...input, createdBy: me.id, inviterName: me.name, clubName: club.clubName }));
+  await inTransaction(async (trx) => {
+    const club = await getClubSettings(trx);
+    await createInvitation(trx, { ...input, createdBy: me.id, inviterName: me.name, clubName: club.clubName });
+  });
   return json({ ok: true, email: input.email }, 201);
 });

@@ -1,22 +1,41 @@
 'use client';
 
 import { useMemo, useState } from 'react';
-import { callApi } from '@/lib/api/client';
 import { NoticeBox } from '@/components/ui/notice-box';
+import { FieldError } from '@/components/ui/field-error';
+import { FormProblemBox } from '@/components/ui/form-problem';
+import { useApiForm } from '@/lib/api/use-api-form';
 import { renderNotice, templateProblem, wrapHtml } from '@/lib/notices/render';
 import { SAMPLE_VALUES } from '@/lib/notices/templates';
+import { templatePutSchema } from '@/lib/validation/notices';
 
 type Template = { key: string; title: string; subject: string; body: string; version: number };
 
+const formValues = (t: Template) => ({ version: t.version, subject: t.subject, body: t.body });
+
+/**
+ * The letter texts (admin), on the one form hook: the handler's schema checks subject and text
+ * in the browser, the server's issues (a placeholder problem) land on the field they name, and a
+ * 409 (someone saved in between) shows with the form.
+ */
 export function TemplateEditor({ templates, placeholders }: { templates: Template[]; placeholders: Record<string, string> }) {
   const [all, setAll] = useState(templates);
   const [key, setKey] = useState(templates[0]?.key ?? '');
   const current = all.find((t) => t.key === key)!;
-  const [subject, setSubject] = useState(current.subject);
-  const [body, setBody] = useState(current.body);
   const [withReporter, setWithReporter] = useState(false);
-  const [message, setMessage] = useState<{ tone: 'info' | 'error'; text: string } | null>(null);
-  const [busy, setBusy] = useState(false);
+  const [saved, setSaved] = useState(false);
+  const { form, submit, problem: serverProblem, setProblem, pending } = useApiForm<typeof templatePutSchema, Template>(templatePutSchema, {
+    defaultValues: formValues(current),
+    request: () => ({ url: `/api/templates/${key}`, method: 'PUT' }),
+    onSuccess: (data) => {
+      setAll(all.map((t) => (t.key === key ? { ...t, ...data } : t)));
+      form.reset(formValues({ ...current, ...data }));
+      setSaved(true);
+    },
+  });
+  const { errors } = form.formState;
+  const subject = form.watch('subject') ?? '';
+  const body = form.watch('body') ?? '';
 
   const problem = templateProblem(subject) ?? templateProblem(body);
   const preview = useMemo(() => {
@@ -29,23 +48,22 @@ export function TemplateEditor({ templates, placeholders }: { templates: Templat
   function choose(k: string) {
     const t = all.find((x) => x.key === k)!;
     setKey(k);
-    setSubject(t.subject);
-    setBody(t.body);
-    setMessage(null);
-  }
-
-  async function save() {
-    setBusy(true);
-    const r = await callApi<Template>(`/api/templates/${key}`, { method: 'PUT', body: { version: current.version, subject, body } });
-    setBusy(false);
-    if (!r.ok) return setMessage({ tone: 'error', text: [r.error, ...(r.issues ?? []).map((i) => i.message)].join(' ') });
-    setAll(all.map((t) => (t.key === key ? { ...t, ...r.data } : t)));
-    setMessage({ tone: 'info', text: 'Saved. Notices approved from now on use this text.' });
+    form.reset(formValues(t));
+    setProblem(null);
+    setSaved(false);
   }
 
   return (
     <div className="grid gap-4 lg:grid-cols-2">
-      <div className="card space-y-3">
+      <form
+        className="card space-y-3"
+        aria-label="Edit the letter"
+        noValidate
+        onSubmit={(e) => {
+          setSaved(false);
+          return submit(e);
+        }}
+      >
         <div>
           <label htmlFor="template-key" className="label">
             Letter
@@ -62,21 +80,37 @@ export function TemplateEditor({ templates, placeholders }: { templates: Templat
           <label htmlFor="template-subject" className="label">
             Subject
           </label>
-          <input id="template-subject" className="field" value={subject} onChange={(e) => setSubject(e.target.value)} />
+          <input
+            id="template-subject"
+            className="field"
+            aria-invalid={!!errors.subject}
+            aria-describedby={errors.subject ? 'template-subject-error' : undefined}
+            {...form.register('subject')}
+          />
+          <FieldError id="template-subject-error" message={errors.subject?.message} />
         </div>
         <div>
           <label htmlFor="template-body" className="label">
             Text
           </label>
-          <textarea id="template-body" rows={22} className="field font-mono text-sm" value={body} onChange={(e) => setBody(e.target.value)} aria-describedby="template-help" />
+          <textarea
+            id="template-body"
+            rows={22}
+            className="field font-mono text-sm"
+            aria-invalid={!!errors.body}
+            aria-describedby={errors.body ? 'template-help template-body-error' : 'template-help'}
+            {...form.register('body')}
+          />
+          <FieldError id="template-body-error" message={errors.body?.message} />
           <p id="template-help" className="mt-1 text-sm text-ink-soft">
             A blank line starts a paragraph; lines starting with “- ” make a list. {'{{#personalNote}}…{{/personalNote}}'} shows its part only when there is a
             note.
           </p>
         </div>
         {problem && <NoticeBox tone="error">{problem}</NoticeBox>}
-        {message && <NoticeBox tone={message.tone}>{message.text}</NoticeBox>}
-        <button type="button" className="btn-primary" disabled={busy || !!problem} onClick={save}>
+        <FormProblemBox problem={serverProblem} />
+        {saved && <NoticeBox tone="info">Saved. Notices approved from now on use this text.</NoticeBox>}
+        <button type="submit" className="btn-primary" disabled={pending || !!problem}>
           Save letter
         </button>
         <details>
@@ -89,7 +123,7 @@ export function TemplateEditor({ templates, placeholders }: { templates: Templat
             ))}
           </dl>
         </details>
-      </div>
+      </form>
       <div className="card space-y-2" aria-live="polite">
         <h2 className="text-xl font-bold">Live preview</h2>
         <label className="flex items-center gap-2 text-sm">

@@ -21,9 +21,9 @@ export const POST = route<{ id: string }>({ body: 'raw' }, async (req, ctx) => {
   const { rows, problems } = parseBearingsCsv(await readText(req));
   if (dryRun) return json({ dryRun: true, valid: rows.length, problems, rows: rows.map(previewRow) });
   if (problems.length) throw new AppError(400, `${problems.length} ${problems.length === 1 ? 'problem' : 'problems'} in the CSV: nothing was imported.`, { problems });
-  const settings = await getClubSettings();
   const imported = await inTransaction(async (trx) => {
     const { row } = await lockVisibleCase(trx, me, id);
+    const settings = await getClubSettings(trx);
     for (const r of rows) await addBearing(trx, me, row, settings, r.input);
     return rows.length;
   });
