@@ -3,7 +3,10 @@
  * (North Atlantic, open water), seeded noise, so figures are comparable between runs.
  */
 import { estimateFix, suggestNextSpots, type LineOfBearing } from '../lib/df';
-import { Geodesic } from '../lib/df/internal/geodesy';
+import geographiclib from 'geographiclib-geodesic';
+
+// The scenes are built and scored with GeographicLib itself (Karney 2013), not lib/df's internals.
+const { Geodesic } = geographiclib;
 
 /** Park-Miller minimal standard generator, uniform in (0, 1): seeded, so runs compare. */
 function parkMiller(seed: number): () => number {

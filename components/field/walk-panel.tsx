@@ -6,7 +6,7 @@ import { browserOffline, callApi } from '@/lib/api/client';
 import { holdAfterFailedSend } from '@/lib/field/drain';
 import { readingInputSchema } from '@/lib/validation/readings';
 import { levelLabel, S_BUTTONS } from './level-words';
-import type { PhonePosition } from './use-phone-position';
+import type { WatchedPosition } from '@/components/ui/use-geolocation';
 import type { FieldQueue } from './use-field-queue';
 
 type Level = { unit: 'S' | 'dBm'; value: number };
@@ -14,7 +14,7 @@ type Level = { unit: 'S' | 'dBm'; value: number };
 export type WalkPanelProps = {
   caseId: string;
   queue: FieldQueue;
-  position: PhonePosition | null;
+  position: WatchedPosition | null;
   positionError: string | null;
   /** a spot tapped on the map, used when the phone has no position */
   tapped: { lat: number; lon: number } | null;

@@ -1,12 +1,15 @@
 'use client';
 
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 
 /** A position the device reported: WGS84 degrees, its accuracy in metres (95 %-ish, as the browser gives it) and when. */
 export type DevicePosition = { lat: number; lon: number; accuracyM: number; at: string };
 
 /** How long to wait for a device position, milliseconds. */
 const GEO_TIMEOUT_MS = 20_000;
+
+const NO_GEOLOCATION = 'This browser cannot share its location; tap your spot on the map.';
+const UNREADABLE = 'Your position could not be read; tap your spot on the map.';
 
 export const GEO_ERRORS: Record<number, string> = {
   1: 'Location permission is off for this site. Allow it in the browser settings, or tap your spot on the map.',
@@ -25,7 +28,7 @@ export function useGeolocation() {
   const locate = (onPosition: (p: DevicePosition) => void) => {
     setProblem(null);
     if (typeof navigator === 'undefined' || !navigator.geolocation) {
-      setProblem('This browser cannot share its location; tap your spot on the map.');
+      setProblem(NO_GEOLOCATION);
       return;
     }
     setLocating(true);
@@ -36,11 +39,40 @@ export function useGeolocation() {
       },
       (err) => {
         setLocating(false);
-        setProblem(GEO_ERRORS[err.code] ?? 'Your position could not be read; tap your spot on the map.');
+        setProblem(GEO_ERRORS[err.code] ?? UNREADABLE);
       },
       { enableHighAccuracy: true, timeout: GEO_TIMEOUT_MS, maximumAge: 0 },
     );
   };
 
   return { locating, problem, locate };
+}
+
+/** A position kept up to date while watched (`at`: the reading's time in ms since the epoch). */
+export type WatchedPosition = { lat: number; lon: number; accuracyM: number; at: number };
+
+/**
+ * The same device position, watched while `active` (the walk, the next-spot list): high accuracy,
+ * readings up to 5 s old; `error` says plainly why there is none. The one-tap form is useGeolocation.
+ */
+export function useWatchedPosition(active: boolean): { position: WatchedPosition | null; error: string | null } {
+  const [position, setPosition] = useState<WatchedPosition | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  useEffect(() => {
+    if (!active) return;
+    if (typeof navigator === 'undefined' || !navigator.geolocation) {
+      setError(NO_GEOLOCATION);
+      return;
+    }
+    const id = navigator.geolocation.watchPosition(
+      (p) => {
+        setError(null);
+        setPosition({ lat: p.coords.latitude, lon: p.coords.longitude, accuracyM: p.coords.accuracy, at: p.timestamp });
+      },
+      (e) => setError(GEO_ERRORS[e.code] ?? UNREADABLE),
+      { enableHighAccuracy: true, maximumAge: 5000, timeout: GEO_TIMEOUT_MS },
+    );
+    return () => navigator.geolocation.clearWatch(id);
+  }, [active]);
+  return { position, error };
 }

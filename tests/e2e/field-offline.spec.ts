@@ -11,7 +11,7 @@ import { expect, test, type Page } from '@playwright/test';
 import { signInPage } from '../support/sign-in-page';
 import { api, signIn, type Session } from '../support/http';
 import { noiseReport } from '../support/fixtures';
-import { geodesicDirect, geodesicInverse } from '../../lib/df/internal/geodesy';
+import { geodesicDirect, geodesicInverse } from '../support/geodesic';
 
 const SOURCE = { lat: -31.7132, lon: 129.2127 };
 const spot = (fromSourceDeg: number, rangeM: number) => {

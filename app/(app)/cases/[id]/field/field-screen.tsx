@@ -23,7 +23,7 @@ import { QueuePanel } from '@/components/field/queue-panel';
 import { TrailPeakCard } from '@/components/field/trail-peak-card';
 import { useFieldQueue } from '@/components/field/use-field-queue';
 import { useLevelTrails } from '@/components/field/use-level-trail';
-import { usePhonePosition } from '@/components/field/use-phone-position';
+import { useWatchedPosition } from '@/components/ui/use-geolocation';
 import { WalkPanel } from '@/components/field/walk-panel';
 import { FixFigure } from '@/components/field/fix-figure';
 
@@ -54,7 +54,7 @@ export function FieldScreen({ caseId }: { caseId: string }) {
   const trailQ = useLevelTrails(caseId, queue.items, caseDetail !== undefined);
   const walkPoints = trailQ.walk?.points.length ?? 0;
   // Paused while a form is open: the form reads the position itself (one request at a time to the phone's GPS).
-  const phone = usePhonePosition(seeHunt && sheet === null);
+  const phone = useWatchedPosition(seeHunt && sheet === null);
   const lastQueued = useRef(false);
   const hold = async (url: string, body: Record<string, unknown> & { clientId: string }) => {
     lastQueued.current = true;

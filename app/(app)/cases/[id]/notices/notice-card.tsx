@@ -2,6 +2,10 @@
 
 import { useRef, useState } from 'react';
 import { callApi } from '@/lib/api/client';
+import { useApiForm } from '@/lib/api/use-api-form';
+import { FormProblemBox } from '@/components/ui/form-problem';
+import { FieldError } from '@/components/ui/field-error';
+import { noticeDeliveredSchema } from '@/lib/validation/notices';
 import { NoticeBox } from '@/components/ui/notice-box';
 import { TEMPLATE_TITLES, type TemplateKey } from '@/lib/notices/templates';
 import { hasContact, type NoticeItem } from '@/lib/notices/views';
@@ -27,7 +31,14 @@ export function NoticeCard({
   const base = `/api/cases/${caseId}/notices/${n.id}`;
   const [busy, setBusy] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
-  const [deliveredOn, setDeliveredOn] = useState(today());
+  // The printed letter's delivery date: the one form hook, the date's problem shown under it.
+  const delivered = useApiForm(noticeDeliveredSchema, {
+    defaultValues: { deliveredOn: today() },
+    request: (v) => ({ url: `${base}/delivered`, body: v }),
+    onSuccess: onChanged,
+    onFailure: onChanged,
+  });
+  const deliveredError = delivered.form.formState.errors.deliveredOn?.message;
   // One key per card: a double click or a retry of the same request queues the notice once.
   const sendKey = useRef<string>(typeof crypto !== 'undefined' && 'randomUUID' in crypto ? crypto.randomUUID() : `${n.id}-${Date.now()}`);
 
@@ -96,22 +107,28 @@ export function NoticeCard({
         )}
       </div>
       {can.decide && (n.status === 'approved' || n.status === 'failed') && (
-        <form
-          className="flex flex-wrap items-end gap-2"
-          onSubmit={(e) => {
-            e.preventDefault();
-            act('delivered', { deliveredOn });
-          }}
-        >
-          <div>
-            <label htmlFor={`delivered-${n.id}`} className="label">
-              Printed letter delivered on
-            </label>
-            <input id={`delivered-${n.id}`} type="date" className="field" max={today()} value={deliveredOn} onChange={(e) => setDeliveredOn(e.target.value)} />
+        <form className="space-y-2" onSubmit={delivered.submit} noValidate>
+          <div className="flex flex-wrap items-end gap-2">
+            <div>
+              <label htmlFor={`delivered-${n.id}`} className="label">
+                Printed letter delivered on
+              </label>
+              <input
+                id={`delivered-${n.id}`}
+                type="date"
+                className="field"
+                max={today()}
+                aria-invalid={!!deliveredError}
+                aria-describedby={deliveredError ? `delivered-${n.id}-problem` : undefined}
+                {...delivered.form.register('deliveredOn')}
+              />
+            </div>
+            <button type="submit" className="btn-quiet" disabled={busy || delivered.pending}>
+              Mark delivered
+            </button>
           </div>
-          <button type="submit" className="btn-quiet" disabled={busy}>
-            Mark delivered
-          </button>
+          <FieldError id={`delivered-${n.id}-problem`} message={deliveredError} />
+          <FormProblemBox problem={delivered.problem} />
         </form>
       )}
       {open && can.contact && <NoticePreview url={`${base}/preview`} version={n.version} />}
