@@ -17,3 +17,8 @@ export async function dataRevision(name: DataName, q: Knex = db): Promise<string
   const [row] = await revisionQuery(name, q);
   return String(row?.rev ?? '0');
 }
+
+/** The same revision as a column of another query (one round trip: lib/auth/session.ts reads it with the user). */
+export function revisionColumn(name: DataName, alias: string, q: Knex = db): Knex.Raw {
+  return q.raw('(select rev::text from data_revisions where name = ?) as ??', [name, alias]);
+}

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { db } from './index';
+import { revisionColumn } from './revisions';
 import type { Profile, Role, User } from './types';
 import type { Page, Paging } from '@/lib/api/paging';
 
@@ -28,6 +29,11 @@ export type SessionUser = User & { sessionVersion: number };
 
 export async function getSessionUser(id: string, q: Knex = db): Promise<SessionUser | undefined> {
   return q('users').select({ ...COLUMNS, sessionVersion: 'session_version' }).where({ id }).first();
+}
+
+/** The same, with the committed revision of the case lists read in the same query (db/revisions.ts). */
+export async function getSessionUserAndCasesRevision(id: string, q: Knex = db): Promise<(SessionUser & { casesRevision: string }) | undefined> {
+  return q('users').select({ ...COLUMNS, sessionVersion: 'session_version' }, revisionColumn('cases', 'casesRevision', q)).where({ id }).first();
 }
 
 /** Only for sign-in and password changes: the hash never leaves db/ otherwise. */

@@ -1,5 +1,5 @@
 import { route, json, readJson } from '@/lib/api/handler';
-import { requireUser } from '@/lib/auth/session';
+import { requireUser, requireUserAndCasesRevision } from '@/lib/auth/session';
 import { inTransaction } from '@/db';
 import { listQueue } from '@/db/queue';
 import { reportSchema } from '@/lib/validation/cases';
@@ -14,9 +14,9 @@ import { cachedCaseList } from '@/lib/cache/case-lists';
  * Kept until a case changes (lib/cache/case-lists.ts).
  */
 export const GET = route(async (req) => {
-  const me = await requireUser();
+  const { me, casesRevision } = await requireUserAndCasesRevision();
   const params = parseQueueParams(req.nextUrl.searchParams);
-  return json(await cachedCaseList(me, 'queue', params, () => listQueue(me, params)));
+  return json(await cachedCaseList(me, casesRevision, 'queue', params, () => listQueue(me, params)));
 });
 
 /** Any signed-in person files a noise report; it becomes an open case. */
