@@ -20,5 +20,5 @@ export async function dataRevision(name: DataName, q: Knex = db): Promise<string
 
 /** The same revision as a column of another query (one round trip: lib/auth/session.ts reads it with the user). */
 export function revisionColumn(name: DataName, alias: string, q: Knex = db): Knex.Raw {
-  return q.raw('(select rev::text from data_revisions where name = ?) as ??', [name, alias]);
+  return q.raw('(?)::text as ??', [revisionQuery(name, q), alias]);
 }

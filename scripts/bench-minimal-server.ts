@@ -1,7 +1,7 @@
 /**
  * The bench's baseline: node:http + pg, no framework, no session check, running exactly the SQL the
  * app runs (built by the same db/ functions, executed here through a plain pg pool), with the app's
- * caches: lists kept under the data revision (lib/cache/by-revision.ts), statistics for 30 s (lib/stats/memo.ts).
+ * caches: lists kept under the data revision (lib/cache/case-lists.ts), statistics for 30 s (lib/stats/memo.ts).
  * With MINIMAL_CACHE=0 it keeps nothing and runs the lists' and statistics' SQL on every request
  * (what the app would cost without its caches). Started by scripts/bench-api.ts:
  *   tsx scripts/bench-minimal-server.ts PORT VIEWER_ID
@@ -15,7 +15,7 @@ import { statsQueries } from '../db/stats';
 import { bboxSchema, parseQueueFilter, parseQueueParams } from '../lib/validation/queue';
 import { shapeStats } from '../lib/stats/shape';
 import { memo } from '../lib/stats/memo';
-import { revisionCache } from '../lib/cache/by-revision';
+import { cachedCaseList } from '../lib/cache/case-lists';
 import { revisionQuery } from '../db/revisions';
 
 const [port, viewerId] = [Number(process.argv[2]), process.argv[3]];
@@ -35,12 +35,11 @@ const run = async (b: Knex.QueryBuilder) => {
 const caching = process.env.MINIMAL_CACHE !== '0';
 const kept = memo<object>(30_000);
 const stats = (key: string, compute: () => Promise<object>) => (caching ? kept(key, compute) : compute());
-const lists = revisionCache<object>();
-/** As lib/cache/case-lists.ts does it: one revision read, then the kept answer or the SQL. */
-const listed = async (kind: string, params: unknown, compute: () => Promise<object>) => {
+/** Through lib/cache/case-lists.ts, as the app: one revision read, then the kept answer or the SQL. */
+const listed = async (kind: 'queue' | 'map', params: unknown, compute: () => Promise<object>) => {
   if (!caching) return compute();
   const [{ rev }] = await run(revisionQuery('cases'));
-  return lists(`${kind}\u0000${viewer.role}:${viewer.id}\u0000${JSON.stringify(params)}`, String(rev), compute);
+  return cachedCaseList(viewer, String(rev), kind, params, compute);
 };
 
 createServer(async (req, res) => {

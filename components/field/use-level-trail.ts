@@ -31,15 +31,15 @@ function trailOf(source: TrailSource, raw: Raw[]): LevelTrailProps {
   };
 }
 
+/** The walk's address (shared with "Prepare for the field"). */
+export const readingsUrl = (caseId: string) => `/api/cases/${caseId}/readings`;
+
 /**
  * The level trails as the map draws them, one per source (the walk, imported surveys): readings
  * stored on the server (as last loaded) and those still waiting on the phone (always the walk),
  * each trail in the order taken with its smoothed levels and peak (lib/df trailPeak) and its
  * strongest single reading. Waiting readings are converted on the phone without the S-meter offset.
  */
-/** The walk's address (shared with "Prepare for the field"). */
-export const readingsUrl = (caseId: string) => `/api/cases/${caseId}/readings`;
-
 export function useLevelTrails(caseId: string, queued: QueuedItem[], enabled: boolean) {
   const q = useSWR<ReadingsPage>(enabled ? readingsUrl(caseId) : null, fetchJson, { refreshInterval: HUNT_REFRESH_MS, revalidateOnFocus: true });
   const trails = useMemo(() => {

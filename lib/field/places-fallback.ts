@@ -29,14 +29,15 @@ export function boxesOverlap(a: Box, b: Box): boolean {
 }
 
 type Feature = { id?: string | number };
-export type KeptPlacesAnswer = { box: Box; storedAt: string | null; body: { features?: Feature[]; truncated?: boolean; cap?: number } };
+export type KeptPlacesAnswer = { box: Box; storedAt: string | null; body: { features?: Feature[]; truncated?: boolean; cap?: number; attribution?: string[] } };
 
 /**
  * One answer for `wanted` from the kept answers that overlap it: each feature once (by id), in the
- * order kept, at most `cap` (the API's own cap when the answers say it); `storedAt` the oldest of
- * the answers used. Null when none overlaps.
+ * order kept, at most `cap` (the API's own cap when the answers say it); every credit the answers
+ * carry (an OpenStreetMap licence notice must stay with its data offline too); `storedAt` the oldest
+ * of the answers used. Null when none overlaps.
  */
-export function joinKeptPlaces(wanted: Box, kept: KeptPlacesAnswer[]): { body: { type: 'FeatureCollection'; features: Feature[]; truncated: boolean; cap?: number }; storedAt: string | null; used: number } | null {
+export function joinKeptPlaces(wanted: Box, kept: KeptPlacesAnswer[]): { body: { type: 'FeatureCollection'; features: Feature[]; truncated: boolean; cap?: number; attribution: string[] }; storedAt: string | null; used: number } | null {
   const used = kept.filter((k) => boxesOverlap(k.box, wanted));
   if (!used.length) return null;
   const cap = used.map((k) => k.body.cap).find((c): c is number => typeof c === 'number' && c > 0);
@@ -55,5 +56,6 @@ export function joinKeptPlaces(wanted: Box, kept: KeptPlacesAnswer[]): { body: {
     }
   }
   const times = used.map((k) => k.storedAt).filter((t): t is string => !!t).sort();
-  return { body: { type: 'FeatureCollection', features, truncated, ...(cap !== undefined ? { cap } : {}) }, storedAt: times[0] ?? null, used: used.length };
+  const attribution = [...new Set(used.flatMap((k) => k.body.attribution ?? []))];
+  return { body: { type: 'FeatureCollection', features, truncated, ...(cap !== undefined ? { cap } : {}), attribution }, storedAt: times[0] ?? null, used: used.length };
 }

@@ -90,6 +90,17 @@ describe('places offline: kept answers that overlap the box asked for', () => {
     expect(joinKeptPlaces(box(120, -30, 120.01, -29.99), kept)).toBeNull();
   });
 
+  it('keeps every credit of the answers it joins, once (the OpenStreetMap notice stays with its data offline)', () => {
+    const osm = 'Streets and houses © OpenStreetMap contributors (ODbL)';
+    const kept: KeptPlacesAnswer[] = [
+      { box: AREA, storedAt: null, body: { features: [f('a')], attribution: [osm] } },
+      { box: AREA, storedAt: null, body: { features: [f('b')], attribution: [osm] } },
+      { box: AREA, storedAt: null, body: { features: [f('c')] } },
+    ];
+    expect(joinKeptPlaces(AREA, kept)!.body.attribution).toEqual([osm]);
+    expect(joinKeptPlaces(AREA, kept.slice(2))!.body.attribution).toEqual([]);
+  });
+
   it('never more than the API cap; truncated carried or set', () => {
     const many = (from: number, n: number) => Array.from({ length: n }, (_, i) => f(`p${from + i}`));
     const kept: KeptPlacesAnswer[] = [
